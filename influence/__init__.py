@@ -1,0 +1,1 @@
+"""Exact influence lines for girders, frames and trusses, built from singularity functions."""

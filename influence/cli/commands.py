@@ -1,0 +1,1 @@
+"""Registers every command module with the ``influence`` group."""

@@ -1,0 +1,157 @@
+"""Load models: what a design code calls a live load, as a set of cases whose worst one governs.
+
+A case is a train (or none) with its factors, a lane load applied only on the adverse parts of an
+influence line, knife-edge loads placed at the extreme ordinate, and an optional scope that limits
+the responses it applies to. Units are those named by ``units`` ("kN-m" or "kip-ft").
+
+Example:
+    >>> case = LoadCase("lane only", train=None, lane=9.3)
+    >>> case.applies_to("moment", "min", interior=False)
+    True
+    >>> Scope(("negative moment",)).admits("moment", "max", interior=False)
+    False
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+from vehicles.errors import VehicleError
+from vehicles.train import Train
+
+RESPONSE_KINDS = ("reaction", "shear", "moment", "axial", "deflection", "rotation")
+SENSES = ("max", "min")
+
+SCOPE_TOKENS = {
+    # token: (response kind, sense or None for both, interior supports only)
+    "negative moment": ("moment", "min", False),
+    "positive moment": ("moment", "max", False),
+    "interior reaction": ("reaction", None, True),
+    **{kind: (kind, None, False) for kind in RESPONSE_KINDS},
+}
+
+
+@dataclass(frozen=True)
+class Scope:
+    """The responses a case applies to; empty means every response.
+
+    Tokens: "negative moment", "positive moment", "interior reaction" (a reaction at a support that
+    is not at an end of the path), or a response kind: reaction, shear, moment, axial, deflection,
+    rotation.
+    """
+
+    effects: tuple[str, ...] = ()
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "effects", tuple(self.effects))
+        for token in self.effects:
+            if token not in SCOPE_TOKENS:
+                raise VehicleError(
+                    f"unknown scope '{token}'",
+                    item="scope",
+                    fix="use one of: " + ", ".join(SCOPE_TOKENS),
+                )
+
+    def admits(self, kind: str, sense: str, *, interior: bool) -> bool:
+        """Whether a case with this scope counts for the ``sense`` extreme of a ``kind`` response."""
+        if not self.effects:
+            return True
+        for token in self.effects:
+            token_kind, token_sense, interior_only = SCOPE_TOKENS[token]
+            if token_kind != kind or (token_sense and token_sense != sense):
+                continue
+            if interior_only and not interior:
+                continue
+            return True
+        return False
+
+
+@dataclass(frozen=True)
+class LoadCase:
+    """One way of loading a lane.
+
+    Args:
+        name: label, such as "design truck + lane".
+        train: the moving train, or None for a lane load alone.
+        factor: multiplies everything in the case (0.90 for a two-truck case) [-].
+        axle_allowance: dynamic load allowance on axles, 0.33 for +33 % [-].
+        patch_allowance: dynamic load allowance on the train's own patches [-].
+        lane: uniform load on the adverse parts of the influence line [force/length].
+        lane_allowance: dynamic load allowance on the lane and knife-edge loads [-].
+        lane_clear_of_train: if not None, the lane is not applied within this distance
+            [length] ahead of the first axle and behind the last axle, nor between them
+            (Load Model 71's uniform load stops 0.8 m from the outer axles).
+        knife_edge_moment: concentrated load at the extreme ordinate for moments and every
+            response other than shear and reactions [force].
+        knife_edge_shear: concentrated load at the extreme ordinate for shear and reactions [force].
+        scope: the responses the case applies to.
+        note: free text shown with the case (clause, assumptions).
+    """
+
+    name: str
+    train: Train | None = None
+    factor: float = 1.0
+    axle_allowance: float = 0.0
+    patch_allowance: float = 0.0
+    lane: float = 0.0
+    lane_allowance: float = 0.0
+    lane_clear_of_train: float | None = None
+    knife_edge_moment: float = 0.0
+    knife_edge_shear: float = 0.0
+    scope: Scope = field(default_factory=Scope)
+    note: str = ""
+
+    def __post_init__(self) -> None:
+        for name in ("factor", "axle_allowance", "patch_allowance", "lane", "lane_allowance",
+                     "knife_edge_moment", "knife_edge_shear"):
+            value = getattr(self, name)
+            if not math.isfinite(value) or value < 0:
+                raise VehicleError(f"{name} = {value:g} is negative or not finite",
+                                   item=self.name, fix=f"give {name} >= 0")
+        if self.factor == 0:
+            raise VehicleError("factor is zero", item=self.name, fix="give a factor > 0")
+        if self.is_empty:
+            raise VehicleError("the case has nothing to place", item=self.name,
+                               fix="give a train, a lane load or a knife-edge load")
+
+    @property
+    def is_empty(self) -> bool:
+        return (self.train is None and self.lane == 0
+                and self.knife_edge_moment == 0 and self.knife_edge_shear == 0)
+
+    def knife_edge_for(self, kind: str) -> float:
+        """The knife-edge load [force] that acts for a response of this kind."""
+        return self.knife_edge_shear if kind in ("shear", "reaction") else self.knife_edge_moment
+
+    def applies_to(self, kind: str, sense: str, *, interior: bool) -> bool:
+        return self.scope.admits(kind, sense, interior=interior)
+
+
+@dataclass(frozen=True)
+class LoadModel:
+    """A named set of cases; the worst case governs each effect.
+
+    Args:
+        name: short library name, such as "HL-93".
+        title: one-line description.
+        units: "kN-m" or "kip-ft".
+        cases: the cases.
+        standard: the standard and edition ("" for a user's own vehicle).
+        clause: the clauses the values come from.
+        notes: remarks, including which values were recalled rather than read.
+    """
+
+    name: str
+    title: str
+    units: str
+    cases: tuple[LoadCase, ...]
+    standard: str = ""
+    clause: str = ""
+    notes: tuple[str, ...] = ()
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "cases", tuple(self.cases))
+        object.__setattr__(self, "notes", tuple(self.notes))
+        if not self.cases:
+            raise VehicleError("a load model needs at least one case", item=self.name)
