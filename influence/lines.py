@@ -1,0 +1,247 @@
+"""Influence lines: exact piecewise polynomials in path chainage.
+
+An influence line gives a response per unit downward load standing at each chainage of the path.
+Inside every piece (between nodes, hinges and the section) it is a polynomial of degree three at
+most; it may jump at the section (shear, axial force) and is zero off the path. Its largest and
+smallest ordinates, areas and zero crossings come from the piece polynomials, never from sampling.
+
+Example (simple span of 10, moment at midspan: the peak ordinate L/4 = 2.5 at the section):
+    >>> from influence.beamform import simple_beam
+    >>> line = influence_line(simple_beam(10.0), Response("moment", "5"))
+    >>> peak = line.extremes().largest
+    >>> round(peak.value, 12), peak.at
+    (2.5, 5.0)
+    >>> (line.values([0.0, 2.0, 10.0]).round(12) + 0.0).tolist()
+    [0.0, 1.0, 0.0]
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from functools import cached_property
+
+import numpy as np
+from numpy.polynomial import polynomial as P
+from scipy.interpolate import PPoly
+
+from influence.model import Model
+from influence.path import PathGeometry, trace
+from influence.responses import Extraction, Response, resolve_many
+from influence.singularity import TERMS, substitute
+from influence.solve import Structure, analyse
+
+NOISE = 1e-14
+"""A term of a piece smaller than this fraction [-] of the line's largest term is round-off of the
+solve (a reaction line that should end at exactly zero, say) and is set to zero."""
+
+ROOT_TOLERANCE = 1e-12
+"""Imaginary part [-] (relative) below which a polynomial root is taken as real."""
+
+
+@dataclass(frozen=True)
+class Extreme:
+    """An extreme ordinate and the load chainage [length] where it occurs."""
+
+    value: float
+    at: float
+
+
+@dataclass(frozen=True)
+class Extremes:
+    largest: Extreme
+    smallest: Extreme
+
+
+@dataclass(frozen=True)
+class InfluenceLine:
+    """A response's influence line along the path.
+
+    Attributes:
+        response: what it measures and where.
+        breakpoints: piece boundaries [length], ascending, from 0 to the path length.
+        coefficients: one row per piece, polynomial in (chainage - piece start), lowest power
+            first, ordinates per unit load.
+        section_chainage: where the section (or support) sits on the path, if it does.
+        interior_support: the response is a reaction at a support that is not a path end.
+        units: "kN-m" or "kip-ft".
+    """
+
+    response: Response
+    breakpoints: np.ndarray
+    coefficients: np.ndarray
+    section_chainage: float | None = None
+    interior_support: bool = False
+    units: str = "kN-m"
+
+    @cached_property
+    def ppoly(self) -> PPoly:
+        """The line as scipy's PPoly (highest power first), zero outside the path."""
+        return PPoly(self.coefficients[:, ::-1].T.copy(), self.breakpoints, extrapolate=False)
+
+    @property
+    def length(self) -> float:
+        return float(self.breakpoints[-1] - self.breakpoints[0])
+
+    def values(self, positions: np.ndarray | list[float], side: str = "right") -> np.ndarray:
+        """Ordinates at load chainages; at a jump ``side`` picks the left or right limit."""
+        x = np.atleast_1d(np.asarray(positions, dtype=float))
+        pieces = np.searchsorted(self.breakpoints, x, side="left" if side == "left" else "right") - 1
+        pieces = np.clip(pieces, 0, len(self.coefficients) - 1)
+        local = x - self.breakpoints[pieces]
+        result = P.polyval(local, self.coefficients[pieces].T, tensor=False)
+        outside = (x < self.breakpoints[0]) | (x > self.breakpoints[-1])
+        return np.where(outside, 0.0, result)
+
+    def limits(self) -> tuple[np.ndarray, np.ndarray]:
+        """Left and right limits at every breakpoint (zero beyond the path ends)."""
+        widths = np.diff(self.breakpoints)
+        ends = P.polyval(widths, self.coefficients.T, tensor=False)
+        starts = self.coefficients[:, 0]
+        left = np.concatenate([[0.0], ends])
+        right = np.concatenate([starts, [0.0]])
+        return left, right
+
+    def _candidates(self) -> tuple[np.ndarray, np.ndarray]:
+        """Every place an extreme can sit: both limits at breakpoints and stationary points."""
+        left, right = self.limits()
+        xs = [self.breakpoints, self.breakpoints]
+        vs = [left, right]
+        for x, value in self._stationary_points():
+            xs.append(np.array([x]))
+            vs.append(np.array([value]))
+        return np.concatenate(xs), np.concatenate(vs)
+
+    def _stationary_points(self) -> list[tuple[float, float]]:
+        found = []
+        for start, width, row in zip(self.breakpoints, np.diff(self.breakpoints),
+                                     self.coefficients, strict=False):
+            for t in _real_roots_in(P.polyder(row), width):
+                found.append((start + t, float(P.polyval(t, row))))
+        return found
+
+    def extremes(self) -> Extremes:
+        """Largest and smallest ordinates (limits at jumps included) and where."""
+        x, v = self._candidates()
+        high, low = int(np.argmax(v)), int(np.argmin(v))
+        return Extremes(Extreme(float(v[high]), float(x[high])),
+                        Extreme(float(v[low]), float(x[low])))
+
+    def zero_crossings(self) -> np.ndarray:
+        """Chainages where the line changes sign [length] (roots and sign changes at jumps)."""
+        crossings = []
+        scale = max(np.abs(self.coefficients[:, 0]).max(), 1e-300)
+        for start, width, row in zip(self.breakpoints, np.diff(self.breakpoints),
+                                     self.coefficients, strict=False):
+            for t in _real_roots_in(row, width):
+                if 1e-12 * width < t < width * (1 - 1e-12):
+                    crossings.append(start + t)
+        left, right = self.limits()
+        for x, lo, hi in zip(self.breakpoints, left, right, strict=True):
+            if lo * hi < 0 or (abs(lo) > 1e-12 * scale and abs(hi) > 1e-12 * scale and lo * hi < 0):
+                crossings.append(x)
+        return np.unique(np.array(crossings, dtype=float))
+
+    def areas(self) -> tuple[float, float]:
+        """(positive area, negative area) under the line [ordinate * length], exact."""
+        positive = negative = 0.0
+        for _, width, row in zip(self.breakpoints, np.diff(self.breakpoints), self.coefficients,
+                                 strict=False):
+            cuts = [0.0, *sorted(_real_roots_in(row, width)), width]
+            integral = P.polyint(row)
+            for lo, hi in zip(cuts, cuts[1:], strict=False):
+                part = float(P.polyval(hi, integral) - P.polyval(lo, integral))
+                if part > 0:
+                    positive += part
+                else:
+                    negative += part
+        return positive, negative
+
+
+def _real_roots_in(row: np.ndarray, width: float) -> list[float]:
+    """Real roots of a polynomial (lowest power first) strictly inside (0, width)."""
+    trimmed = np.trim_zeros(np.asarray(row, dtype=float), "b")
+    if len(trimmed) < 2:
+        return []
+    roots = P.polyroots(trimmed)
+    real = roots[np.abs(roots.imag) <= ROOT_TOLERANCE * np.maximum(1.0, np.abs(roots))].real
+    return sorted(float(t) for t in real if 0.0 < t < width)
+
+
+@dataclass(frozen=True)
+class Analysis:
+    """A model traced, assembled and factorised once; influence lines come from it on demand."""
+
+    model: Model
+    structure: Structure
+    path: PathGeometry
+
+    def lines(self, responses: tuple[Response, ...] | list[Response]) -> list[InfluenceLine]:
+        """Influence lines of many responses, from one multi-column solve."""
+        extractions = resolve_many(self.structure, self.path, tuple(responses))
+        return [self._line(e) for e in extractions]
+
+    def line(self, response: Response) -> InfluenceLine:
+        return self.lines((response,))[0]
+
+    def _line(self, extraction: Extraction) -> InfluenceLine:
+        breakpoints: list[float] = [0.0]
+        rows: list[np.ndarray] = []
+        h = extraction.weights
+        for leg in self.path.legs:
+            frame = self.structure.frames[leg.member]
+            dofs = np.array(frame.dofs)
+            used = dofs >= 0
+            base = h[dofs[used]] @ frame.equivalent_loads[used]
+            # the member's own part changes where the load passes the section
+            member_pieces: list[tuple[float, float, np.ndarray]]
+            if extraction.own_member == leg.member and extraction.own_rules is not None:
+                s = extraction.own_position
+                behind, ahead = extraction.own_rules
+                member_pieces = [(0.0, s, base + behind), (s, leg.length, base + ahead)]
+            else:
+                member_pieces = [(0.0, leg.length, base)]
+            for lo, hi, poly in _in_travel_order(member_pieces, leg.against_member, leg.length):
+                if hi - lo <= 0:
+                    continue
+                start = leg.start_chainage + lo
+                # member position a = offset + scale * (chainage - start)
+                if leg.against_member:
+                    row = substitute(poly, leg.length - lo, -1.0)
+                else:
+                    row = substitute(poly, lo, 1.0)
+                rows.append(row)
+                breakpoints.append(start + (hi - lo))
+        edges = np.array(breakpoints)
+        return InfluenceLine(
+            response=extraction.response,
+            breakpoints=edges,
+            coefficients=_without_noise(np.array(rows).reshape(-1, TERMS), np.diff(edges)),
+            section_chainage=extraction.section_chainage,
+            interior_support=extraction.interior_support,
+            units=self.model.units,
+        )
+
+
+def _without_noise(rows: np.ndarray, widths: np.ndarray) -> np.ndarray:
+    reach = np.abs(rows) * widths[:, None] ** np.arange(TERMS)
+    scale = reach.max(initial=0.0)
+    return np.where(reach < NOISE * scale, 0.0, rows)
+
+
+def _in_travel_order(pieces: list[tuple[float, float, np.ndarray]], against: bool,
+                     length: float) -> list[tuple[float, float, np.ndarray]]:
+    """Member pieces as (from, to) distances along the travel direction, in travel order."""
+    if not against:
+        return pieces
+    return [(length - hi, length - lo, poly) for lo, hi, poly in reversed(pieces)]
+
+
+def analyse_model(model: Model) -> Analysis:
+    """Trace the path and factorise the structure once."""
+    return Analysis(model, analyse(model), trace(model))
+
+
+def influence_line(model: Model | Analysis, response: Response) -> InfluenceLine:
+    """The exact influence line of one response (see :class:`Response` for locations)."""
+    analysis = model if isinstance(model, Analysis) else analyse_model(model)
+    return analysis.line(response)
