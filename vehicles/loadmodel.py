@@ -19,6 +19,7 @@ from dataclasses import dataclass, field
 
 from vehicles.errors import VehicleError
 from vehicles.train import Train
+from vehicles.units import system
 
 RESPONSE_KINDS = ("reaction", "shear", "moment", "axial", "deflection", "rotation")
 SENSES = ("max", "min")
@@ -54,7 +55,13 @@ class Scope:
                 )
 
     def admits(self, kind: str, sense: str, *, interior: bool) -> bool:
-        """Whether a case with this scope counts for the ``sense`` extreme of a ``kind`` response."""
+        """Whether a case with this scope counts for the ``sense`` extreme of a ``kind`` response.
+
+        Args:
+            kind: a response kind from :data:`RESPONSE_KINDS`.
+            sense: "max" or "min".
+            interior: whether a reaction is at a support that is not at an end of the path.
+        """
         if not self.effects:
             return True
         for token in self.effects:
@@ -109,6 +116,10 @@ class LoadCase:
             if not math.isfinite(value) or value < 0:
                 raise VehicleError(f"{name} = {value:g} is negative or not finite",
                                    item=self.name, fix=f"give {name} >= 0")
+        clear = self.lane_clear_of_train
+        if clear is not None and not (math.isfinite(clear) and clear >= 0):
+            raise VehicleError(f"lane_clear_of_train = {clear:g} is negative or not finite",
+                               item=self.name, fix="give a clear distance >= 0")
         if self.factor == 0:
             raise VehicleError("factor is zero", item=self.name, fix="give a factor > 0")
         if self.is_empty:
@@ -117,6 +128,7 @@ class LoadCase:
 
     @property
     def is_empty(self) -> bool:
+        """Whether the case has no train, no lane load and no knife-edge load."""
         return (self.train is None and self.lane == 0
                 and self.knife_edge_moment == 0 and self.knife_edge_shear == 0)
 
@@ -125,7 +137,55 @@ class LoadCase:
         return self.knife_edge_shear if kind in ("shear", "reaction") else self.knife_edge_moment
 
     def applies_to(self, kind: str, sense: str, *, interior: bool) -> bool:
+        """Whether the case counts for the ``sense`` extreme of a ``kind`` response."""
         return self.scope.admits(kind, sense, interior=interior)
+
+
+SCALED_QUANTITIES = ("axles", "uniform", "lane", "knife_edges")
+"""What an adjustment may scale: axle loads, the train's uniform patches, lane, knife-edges."""
+
+SET_QUANTITIES = ("dynamic_allowance", "uniform_dynamic_allowance", "lane_dynamic_allowance")
+"""What an adjustment may set: the allowance on axles, on the train's patches, on lane loads."""
+
+
+@dataclass(frozen=True)
+class Adjustment:
+    """A named input of a load model that the user may change, such as EN 1991-2's alpha.
+
+    The model's loads are stored as they are at ``value``; see :func:`vehicles.adjust.adjusted`.
+
+    Args:
+        name: the symbol, such as "alpha" or "impact".
+        value: its value in the stored model [-]; must be positive when it scales loads.
+        scales: quantities proportional to the value, from :data:`SCALED_QUANTITIES`.
+        sets: allowances equal to the value, from :data:`SET_QUANTITIES`.
+        note: what it is, its clause and its usual values.
+    """
+
+    name: str
+    value: float
+    scales: tuple[str, ...] = ()
+    sets: tuple[str, ...] = ()
+    note: str = ""
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "scales", tuple(self.scales))
+        object.__setattr__(self, "sets", tuple(self.sets))
+        for token in self.scales:
+            if token not in SCALED_QUANTITIES:
+                raise VehicleError(f"cannot scale '{token}'", item=f"adjustment {self.name}",
+                                   fix="scale one of: " + ", ".join(SCALED_QUANTITIES))
+        for token in self.sets:
+            if token not in SET_QUANTITIES:
+                raise VehicleError(f"cannot set '{token}'", item=f"adjustment {self.name}",
+                                   fix="set one of: " + ", ".join(SET_QUANTITIES))
+        if not self.scales and not self.sets:
+            raise VehicleError("the adjustment scales and sets nothing",
+                               item=f"adjustment {self.name}", fix="give scales or sets")
+        if not math.isfinite(self.value) or self.value < 0 or (self.scales and self.value == 0):
+            need = "> 0" if self.scales else ">= 0"
+            raise VehicleError(f"value {self.value:g} is not allowed",
+                               item=f"adjustment {self.name}", fix=f"give a value {need}")
 
 
 @dataclass(frozen=True)
@@ -140,6 +200,7 @@ class LoadModel:
         standard: the standard and edition ("" for a user's own vehicle).
         clause: the clauses the values come from.
         notes: remarks, including which values were recalled rather than read.
+        adjustments: inputs the user may change (see :func:`vehicles.adjust.adjusted`).
     """
 
     name: str
@@ -149,9 +210,18 @@ class LoadModel:
     standard: str = ""
     clause: str = ""
     notes: tuple[str, ...] = ()
+    adjustments: tuple[Adjustment, ...] = ()
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "cases", tuple(self.cases))
         object.__setattr__(self, "notes", tuple(self.notes))
+        object.__setattr__(self, "adjustments", tuple(self.adjustments))
         if not self.cases:
             raise VehicleError("a load model needs at least one case", item=self.name)
+        system(self.units)
+        for kind, names in (("case", [c.name for c in self.cases]),
+                            ("adjustment", [a.name for a in self.adjustments])):
+            repeated = sorted({n for n in names if names.count(n) > 1})
+            if repeated:
+                raise VehicleError(f"{kind} name '{repeated[0]}' is used twice", item=self.name,
+                                   fix=f"give each {kind} its own name")

@@ -36,6 +36,11 @@ Span = float | tuple[float, float]
 def _check_span(value: Span, what: str, *, allow_zero: bool) -> Span:
     if isinstance(value, tuple):
         low, high = (float(v) for v in value)
+        if not math.isfinite(high):
+            # NaN slipped through the min/max comparison; an open range has no search bound
+            raise VehicleError(
+                f"range [{low:g}, {high:g}] has no finite max", item=what, fix="give a finite max"
+            )
         if low > high:
             raise VehicleError(
                 f"range [{low:g}, {high:g}] has min above max", item=what, fix="give [min, max]"
@@ -143,6 +148,9 @@ class Train:
         object.__setattr__(self, "items", tuple(self.items))
         if not self.items:
             raise VehicleError("a train needs at least one axle or patch", item=self.name)
+        if self.items[0].gap != 0.0:
+            # the first gap means nothing; zeroing it lets equal trains compare equal
+            object.__setattr__(self, "items", (_with_gap(self.items[0], 0.0), *self.items[1:]))
         for index, item in enumerate(self.items):
             inner = 0 < index < len(self.items) - 1
             if isinstance(item, Patch) and item.length is None and inner:
@@ -230,13 +238,25 @@ class Train:
         )
 
     def reversed(self) -> Train:
-        """The same train described rear to front (gaps move with the items they follow)."""
+        """The same train described rear to front (gaps move with the items they follow).
+
+        Reversing twice gives the train back, name included.
+
+        Example:
+            >>> truck = Train("truck", (Axle(8.0), Axle(32.0, 14.0), Axle(32.0, (14.0, 30.0))))
+            >>> [(a.load, a.gap) for a in truck.reversed().items]
+            [(32.0, 0.0), (32.0, (14.0, 30.0)), (8.0, 14.0)]
+            >>> truck.reversed().reversed() == truck
+            True
+        """
         items = list(self.items)
         gaps = [item.gap for item in items[1:]] + [0.0]
         flipped = []
         for item, gap in zip(reversed(items), reversed(gaps), strict=True):
             flipped.append(_with_gap(item, gap))
-        return Train(self.name + " (reversed)", tuple(flipped))
+        suffix = " (reversed)"
+        name = self.name.removesuffix(suffix) if self.name.endswith(suffix) else self.name + suffix
+        return Train(name, tuple(flipped))
 
     def followed_by(self, other: Train, headway: Span, name: str | None = None) -> Train:
         """This train, then ``other`` at a clear ``headway`` [length] (fixed or a range)."""
@@ -246,9 +266,9 @@ class Train:
 
     def total_load(self, choices: Sequence[float] | None = None) -> float:
         """Sum of axle loads and patch loads [force]; infinite with an unlimited patch."""
-        arrangement = self.arranged(choices)
-        patches = arrangement.patch_intensities * (arrangement.patch_ends - arrangement.patch_starts)
-        return float(arrangement.axle_loads.sum() + patches.sum())
+        a = self.arranged(choices)
+        patches = a.patch_intensities * (a.patch_ends - a.patch_starts)
+        return float(a.axle_loads.sum() + patches.sum())
 
     def length(self, choices: Sequence[float] | None = None) -> float:
         """Distance from the front of the first item to the rear of the last [length]."""

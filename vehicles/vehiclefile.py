@@ -1,0 +1,363 @@
+"""Reading vehicle files and load-model files (TOML) into :class:`LoadModel` values.
+
+Two forms share one vocabulary. A vehicle file holds one ``[vehicle]`` table: a train, its
+factors and lane load, read as a model with a single case. A model file holds ``[model]``
+(name, title, units, standard, clause, notes), optional ``[[train]]`` tables that cases refer to
+by name, ``[[case]]`` tables and optional ``[[adjustment]]`` tables. Every value is in the units
+the file names (``units = "kN-m"`` or ``"kip-ft"``): loads [force], gaps and lengths [length],
+uniform and lane loads [force/length].
+
+A train is given by one of:
+
+- ``loads`` (front to rear) and ``spacings`` (gap to the previous axle, one fewer than loads; a
+  pair ``[min, max]`` is a range), with optional ``leading_uniform`` / ``trailing_uniform``
+  tables (``intensity``, ``length`` = a number, a range or ``"unlimited"`` (the default), and
+  ``gap`` to the nearest axle);
+- ``items``, a list of ``{ axle = load, gap = ... }`` and
+  ``{ uniform = intensity, length = ..., gap = ... }`` tables, front to rear;
+- ``vehicles`` (names of ``[[train]]`` tables) joined by ``headways`` (clear gap from the rear of
+  one to the front of the next; fixed or a range), one fewer than vehicles.
+
+Case keys: ``name``, ``train`` (a ``[[train]]`` name, or a ``[case.train]`` table), the train
+keys above inline, ``factor``, ``dynamic_allowance`` (on axles), ``uniform_dynamic_allowance``
+(on the train's uniform loads), ``lane``, ``lane_dynamic_allowance`` (on lane and knife-edge
+loads), ``lane_clear_of_axles``, ``knife_edge_for_moment``, ``knife_edge_for_shear``, ``scope``
+(list, such as ``["negative moment", "interior reaction"]``) and ``note``.
+
+Example:
+    >>> model = parse_model('''
+    ... [vehicle]
+    ... name = "hauler"
+    ... units = "kN-m"
+    ... loads = [60, 110, 110]
+    ... spacings = [3.4, [1.3, 4.0]]
+    ... dynamic_allowance = 0.25
+    ... ''', "hauler.toml")
+    >>> case = model.cases[0]
+    >>> case.train.total_load(), case.axle_allowance, case.train.ranges[0].high
+    (280.0, 0.25, 4.0)
+"""
+
+from __future__ import annotations
+
+import difflib
+import math
+import tomllib
+from collections.abc import Callable, Mapping
+from functools import partial
+from pathlib import Path
+from typing import Any, TypeVar
+
+from vehicles.errors import VehicleError
+from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
+from vehicles.train import Axle, Item, Patch, Span, Train
+
+MODEL_KEYS = ("name", "title", "units", "standard", "clause", "notes")
+TRAIN_KEYS = ("loads", "spacings", "leading_uniform", "trailing_uniform", "items", "vehicles",
+              "headways")
+CASE_KEYS = ("name", "train", "factor", "dynamic_allowance", "uniform_dynamic_allowance", "lane",
+             "lane_dynamic_allowance", "lane_clear_of_axles", "knife_edge_for_moment",
+             "knife_edge_for_shear", "scope", "note", *TRAIN_KEYS)
+VEHICLE_KEYS = tuple(dict.fromkeys((*MODEL_KEYS, *CASE_KEYS)))
+UNIFORM_KEYS = ("intensity", "length", "gap")
+ADJUSTMENT_KEYS = ("name", "value", "scales", "sets", "note")
+UNLIMITED = "unlimited"
+
+_CASE_FIELDS = {
+    # file key: LoadCase field
+    "factor": "factor",
+    "dynamic_allowance": "axle_allowance",
+    "uniform_dynamic_allowance": "patch_allowance",
+    "lane": "lane",
+    "lane_dynamic_allowance": "lane_allowance",
+    "lane_clear_of_axles": "lane_clear_of_train",
+    "knife_edge_for_moment": "knife_edge_moment",
+    "knife_edge_for_shear": "knife_edge_shear",
+}
+
+T = TypeVar("T")
+
+
+class _Reader:
+    """Checks and converts raw TOML values, naming the file and the item in every error."""
+
+    def __init__(self, source: str) -> None:
+        self.source = source
+
+    def fail(self, where: str, problem: str, fix: str) -> VehicleError:
+        return VehicleError(problem, source=self.source, item=where, fix=fix)
+
+    def built(self, where: str, make: Callable[[], T]) -> T:
+        """Call a constructor, re-raising its error with the file and the item."""
+        try:
+            return make()
+        except VehicleError as error:
+            item = f"{where} {error.item}" if error.item else where
+            raise self.fail(item, error.problem, error.fix) from None
+
+    def table(self, value: object, where: str, allowed: tuple[str, ...]) -> dict[str, Any]:
+        if not isinstance(value, dict):
+            raise self.fail(where, f"expected a table, found {value!r}", "give a TOML table")
+        for key in value:
+            if key not in allowed:
+                close = difflib.get_close_matches(key, allowed, n=1)
+                hint = f"did you mean '{close[0]}'?" if close else "allowed: " + ", ".join(allowed)
+                raise self.fail(where, f"unknown key '{key}'", hint)
+        return value
+
+    def text(self, value: object, where: str) -> str:
+        if not isinstance(value, str):
+            raise self.fail(where, f"expected text, found {value!r}", 'give a quoted "string"')
+        return value
+
+    def texts(self, value: object, where: str) -> tuple[str, ...]:
+        if not isinstance(value, list):
+            raise self.fail(where, f"expected a list of text, found {value!r}", 'give ["..."]')
+        return tuple(self.text(v, f"{where}[{i + 1}]") for i, v in enumerate(value))
+
+    def number(self, value: object, where: str, *, positive: bool = False) -> float:
+        if isinstance(value, bool) or not isinstance(value, int | float):
+            raise self.fail(where, f"expected a number, found {value!r}", "give a number")
+        number = float(value)
+        if not math.isfinite(number) or number < 0 or (positive and number == 0):
+            need = "positive" if positive else "zero or positive"
+            raise self.fail(where, f"{number:g} is not allowed", f"give a {need} number")
+        return number
+
+    def span(self, value: object, where: str, *, positive: bool = False) -> Span:
+        if isinstance(value, list):
+            if len(value) != 2:
+                raise self.fail(where, f"a range needs two numbers, found {value!r}",
+                                "give [min, max]")
+            low = self.number(value[0], where, positive=positive)
+            high = self.number(value[1], where, positive=positive)
+            if low > high:
+                raise self.fail(where, f"range [{low:g}, {high:g}] has min above max",
+                                f"give [{high:g}, {low:g}]")
+            return (low, high)
+        return self.number(value, where, positive=positive)
+
+    def length(self, value: object, where: str) -> Span | None:
+        if value == UNLIMITED:
+            return None
+        return self.span(value, where, positive=True)
+
+    def numbers(self, value: object, where: str, *, allow_empty: bool = False) -> list[object]:
+        if not isinstance(value, list) or not (value or allow_empty):
+            raise self.fail(where, f"expected a list, found {value!r}", "give [a, b, ...]")
+        return value
+
+    # trains
+
+    def uniform(self, value: object, where: str, gap_default: Span = 0.0) -> Patch:
+        raw = self.table(value, where, UNIFORM_KEYS)
+        if "intensity" not in raw:
+            raise self.fail(where, "no intensity", "give intensity = load per unit length")
+        intensity = self.number(raw["intensity"], f"{where} intensity", positive=True)
+        length = self.length(raw.get("length", UNLIMITED), f"{where} length")
+        gap = self.span(raw.get("gap", gap_default), f"{where} gap")
+        return Patch(intensity, length, gap)
+
+    def axles(self, raw: Mapping[str, Any], where: str) -> list[Item]:
+        loads = self.numbers(raw["loads"], f"{where} loads")
+        spacings = self.numbers(raw.get("spacings", []), f"{where} spacings", allow_empty=True)
+        if len(spacings) != len(loads) - 1:
+            raise self.fail(f"{where} spacings",
+                            f"{len(spacings)} spacings for {len(loads)} loads",
+                            "give one spacing fewer than loads: the gap to the previous axle")
+        items: list[Item] = [Axle(self.number(loads[0], f"{where} loads[1]", positive=True))]
+        for index, (load, gap) in enumerate(zip(loads[1:], spacings, strict=True), start=2):
+            axle_load = self.number(load, f"{where} loads[{index}]", positive=True)
+            axle_gap = self.span(gap, f"{where} spacings[{index - 1}]", positive=True)
+            items.append(Axle(axle_load, axle_gap))
+        if "leading_uniform" in raw:
+            lead = self.uniform(raw["leading_uniform"], f"{where} leading_uniform")
+            items[0] = Axle(items[0].load, lead.gap)  # type: ignore[union-attr]
+            items.insert(0, Patch(lead.intensity, lead.length))
+        if "trailing_uniform" in raw:
+            items.append(self.uniform(raw["trailing_uniform"], f"{where} trailing_uniform"))
+        return items
+
+    def item(self, value: object, where: str, first: bool) -> Item:
+        keys = ("axle", "uniform", "length", "gap")
+        raw = self.table(value, where, keys)
+        gap = 0.0 if first else self.span(raw.get("gap", 0.0), f"{where} gap")
+        if ("axle" in raw) == ("uniform" in raw):
+            raise self.fail(where, "an item needs one of axle or uniform",
+                            "give { axle = load } or { uniform = intensity, length = ... }")
+        if "axle" in raw:
+            if "length" in raw:
+                raise self.fail(where, "an axle has no length", "remove length")
+            return Axle(self.number(raw["axle"], f"{where} axle", positive=True), gap)
+        intensity = self.number(raw["uniform"], f"{where} uniform", positive=True)
+        return Patch(intensity, self.length(raw.get("length", UNLIMITED), f"{where} length"), gap)
+
+    def train(self, raw: Mapping[str, Any], name: str, where: str,
+              named: Mapping[str, Train]) -> Train:
+        forms = [key for key in ("loads", "items", "vehicles") if key in raw]
+        if len(forms) != 1:
+            found = " and ".join(forms) if forms else "none of them"
+            raise self.fail(where, f"a train needs one of loads, items or vehicles; found {found}",
+                            "describe the train one way")
+        others = {"loads": ("items", "vehicles", "headways"),
+                  "items": ("spacings", "leading_uniform", "trailing_uniform", "headways"),
+                  "vehicles": ("spacings", "leading_uniform", "trailing_uniform", "items")}
+        for key in others[forms[0]]:
+            if key in raw:
+                raise self.fail(f"{where} {key}", f"'{key}' does not go with '{forms[0]}'",
+                                f"remove {key}")
+        if forms[0] == "loads":
+            items = self.axles(raw, where)
+            return self.built(where, lambda: Train(name, tuple(items)))
+        if forms[0] == "items":
+            listed = self.numbers(raw["items"], f"{where} items")
+            made = [self.item(v, f"{where} items[{i + 1}]", i == 0) for i, v in enumerate(listed)]
+            return self.built(where, lambda: Train(name, tuple(made)))
+        return self.joined(raw, name, where, named)
+
+    def joined(self, raw: Mapping[str, Any], name: str, where: str,
+               named: Mapping[str, Train]) -> Train:
+        names = self.texts(raw["vehicles"], f"{where} vehicles")
+        headways = self.numbers(raw.get("headways", []), f"{where} headways", allow_empty=True)
+        if not names or len(headways) != len(names) - 1:
+            raise self.fail(f"{where} headways", f"{len(headways)} headways for {len(names)} "
+                            "vehicles", "give one headway fewer than vehicles")
+        parts = []
+        for index, part_name in enumerate(names):
+            if part_name not in named:
+                close = difflib.get_close_matches(part_name, list(named), n=1)
+                hint = f"did you mean '{close[0]}'?" if close else "define it in a [[train]] table"
+                raise self.fail(f"{where} vehicles[{index + 1}]",
+                                f"no train named '{part_name}'", hint)
+            parts.append(named[part_name])
+        joined = parts[0]
+        for index, (part, headway) in enumerate(zip(parts[1:], headways, strict=True)):
+            gap = self.span(headway, f"{where} headways[{index + 1}]")
+            joined = self.built(where, partial(joined.followed_by, part, gap))
+        return Train(name, joined.items)
+
+    # cases and models
+
+    def case(self, raw: Mapping[str, Any], where: str, named: Mapping[str, Train]) -> LoadCase:
+        name = self.text(raw.get("name", ""), f"{where} name") or where
+        where = f"case '{name}'" if "name" in raw else where
+        train: Train | None = None
+        reference = raw.get("train")
+        has_inline = any(key in raw for key in TRAIN_KEYS)
+        if reference is not None and has_inline:
+            raise self.fail(f"{where} train", "a train is given twice",
+                            "give train = \"name\" or the train keys, not both")
+        if isinstance(reference, str):
+            if reference not in named:
+                close = difflib.get_close_matches(reference, list(named), n=1)
+                hint = f"did you mean '{close[0]}'?" if close else "define it in a [[train]] table"
+                raise self.fail(f"{where} train", f"no train named '{reference}'", hint)
+            train = named[reference]
+        elif reference is not None:
+            sub = self.table(reference, f"{where} train", ("name", *TRAIN_KEYS))
+            train_name = self.text(sub.get("name", name), f"{where} train name")
+            train = self.train(sub, train_name, f"{where} train", named)
+        elif has_inline:
+            train = self.train(raw, name, where, named)
+        values = {field: self.number(raw[key], f"{where} {key}")
+                  for key, field in _CASE_FIELDS.items() if key in raw}
+        scope = self.texts(raw.get("scope", []), f"{where} scope")
+        note = self.text(raw.get("note", ""), f"{where} note")
+        return self.built(where, lambda: LoadCase(
+            name, train, scope=Scope(scope), note=note, **values))  # type: ignore[arg-type]
+
+    def adjustment(self, value: object, where: str) -> Adjustment:
+        raw = self.table(value, where, ADJUSTMENT_KEYS)
+        for key in ("name", "value"):
+            if key not in raw:
+                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        name = self.text(raw["name"], f"{where} name")
+        value = self.number(raw["value"], f"{where} value")
+        scales = self.texts(raw.get("scales", []), f"{where} scales")
+        sets = self.texts(raw.get("sets", []), f"{where} sets")
+        note = self.text(raw.get("note", ""), f"{where} note")
+        return self.built(where, partial(Adjustment, name, value, scales, sets, note))
+
+    def model(self, meta: Mapping[str, Any], where: str, cases: tuple[LoadCase, ...],
+              adjustments: tuple[Adjustment, ...]) -> LoadModel:
+        for key in ("name", "units"):
+            if key not in meta:
+                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        name = self.text(meta["name"], f"{where} name")
+        fields = {key: self.text(meta.get(key, ""), f"{where} {key}")
+                  for key in ("title", "units", "standard", "clause")}
+        notes = self.texts(meta.get("notes", []), f"{where} notes")
+        return self.built(where, lambda: LoadModel(
+            name, fields["title"] or name, fields["units"], cases, fields["standard"],
+            fields["clause"], notes, adjustments))
+
+    def document(self, data: Mapping[str, Any]) -> LoadModel:
+        if "vehicle" in data:
+            self.table(data, "file", ("vehicle",))
+            raw = self.table(data["vehicle"], "[vehicle]", VEHICLE_KEYS)
+            case_raw = {k: v for k, v in raw.items() if k in CASE_KEYS}
+            case = self.case(case_raw, "[vehicle]", {})
+            return self.model(raw, "[vehicle]", (case,), ())
+        self.table(data, "file", ("model", "train", "case", "adjustment"))
+        if "model" not in data:
+            raise self.fail("file", "no [vehicle] or [model] table",
+                            "start the file with [vehicle] (one vehicle) or [model] (cases)")
+        named: dict[str, Train] = {}
+        for index, value in enumerate(self.tables(data, "train")):
+            where = f"[[train]] {index + 1}"
+            raw = self.table(value, where, ("name", *TRAIN_KEYS))
+            name = self.text(raw.get("name", ""), f"{where} name")
+            if not name or name in named:
+                raise self.fail(f"{where} name", f"train name '{name}' is missing or used twice",
+                                "give each train its own name")
+            named[name] = self.train(raw, name, f"train '{name}'", named)
+        cases = tuple(self.case(self.table(value, f"[[case]] {i + 1}", CASE_KEYS),
+                                f"[[case]] {i + 1}", named)
+                      for i, value in enumerate(self.tables(data, "case")))
+        adjustments = tuple(self.adjustment(value, f"[[adjustment]] {i + 1}")
+                            for i, value in enumerate(self.tables(data, "adjustment")))
+        meta = self.table(data["model"], "[model]", MODEL_KEYS)
+        return self.model(meta, "[model]", cases, adjustments)
+
+    def tables(self, data: Mapping[str, Any], key: str) -> list[object]:
+        value = data.get(key, [])
+        if not isinstance(value, list):
+            raise self.fail(key, f"'{key}' must be an array of tables", f"write [[{key}]]")
+        return value
+
+
+def parse_model(text: str, source: str = "<text>") -> LoadModel:
+    """Read a vehicle or load-model document from TOML text.
+
+    Args:
+        text: the TOML document.
+        source: the file name used in error messages.
+
+    Raises:
+        VehicleError: for malformed TOML (with its line) or any bad value, in one line.
+    """
+    try:
+        data = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as error:
+        raise VehicleError(f"malformed TOML: {error}", source=source,
+                           fix="correct the TOML syntax there") from None
+    return _Reader(source).document(data)
+
+
+def read_model(path: str | Path) -> LoadModel:
+    """Read a vehicle file or a load-model file.
+
+    Args:
+        path: the TOML file.
+
+    Raises:
+        VehicleError: when the file cannot be read or holds a bad value.
+    """
+    path = Path(path)
+    try:
+        text = path.read_text(encoding="utf-8")
+    except (OSError, UnicodeDecodeError) as error:
+        reason = getattr(error, "strerror", None) or str(error)
+        raise VehicleError(f"cannot read the file: {reason}", source=str(path),
+                           fix="give the path of a UTF-8 TOML vehicle file") from None
+    return parse_model(text, str(path))
