@@ -90,12 +90,19 @@ class InfluenceLine:
         local = x - self.breakpoints[pieces]
         result = P.polyval(local, self.coefficients[pieces].T, tensor=False)
         outside = (x < self.breakpoints[0]) | (x > self.breakpoints[-1])
-        return np.where(outside, 0.0, result)
+        return np.where(outside | (np.abs(result) < NOISE * self.scale), 0.0, result)
+
+    @cached_property
+    def scale(self) -> float:
+        """The largest term of any piece: the size of the line's ordinates."""
+        widths = np.diff(self.breakpoints)[:, None] ** np.arange(TERMS)
+        return float((np.abs(self.coefficients) * widths).max(initial=0.0))
 
     def limits(self) -> tuple[np.ndarray, np.ndarray]:
         """Left and right limits at every breakpoint (zero beyond the path ends)."""
         widths = np.diff(self.breakpoints)
         ends = P.polyval(widths, self.coefficients.T, tensor=False)
+        ends = np.where(np.abs(ends) < NOISE * self.scale, 0.0, ends)
         starts = self.coefficients[:, 0]
         left = np.concatenate([[0.0], ends])
         right = np.concatenate([starts, [0.0]])

@@ -1,1 +1,2 @@
 """Registers every command module with the ``influence`` group."""
+from influence.cli import lines  # noqa: F401

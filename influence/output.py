@@ -1,0 +1,113 @@
+"""Plain text tables, CSV and JSON, and writing files without leaving half-written ones.
+
+Example:
+    >>> print(render_table(Table(["Demo"], ("x [m]", "y [-]"), [(0.0, 1.0), (2.5, -0.25)])))
+    Demo
+    x [m]  y [-]
+    -----  -----
+        0      1
+      2.5  -0.25
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+import os
+import tempfile
+from collections.abc import Callable, Sequence
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any
+
+import numpy as np
+
+
+@dataclass(frozen=True)
+class Table:
+    """Header lines, column names (with units) and rows."""
+
+    header: list[str]
+    columns: tuple[str, ...]
+    rows: list[tuple[Any, ...]] = field(default_factory=list)
+
+
+def _cell(value: Any) -> str:
+    if isinstance(value, float | np.floating):
+        return f"{float(value):.6g}" if value != 0 else "0"
+    return str(value)
+
+
+def render_table(table: Table) -> str:
+    """Aligned text: header lines, then the columns."""
+    cells = [[_cell(v) for v in row] for row in table.rows]
+    widths = [max([len(c)] + [len(r[i]) for r in cells]) for i, c in enumerate(table.columns)]
+    lines = list(table.header)
+    lines.append("  ".join(c.rjust(w) for c, w in zip(table.columns, widths, strict=True)))
+    lines.append("  ".join("-" * w for w in widths))
+    for row in cells:
+        lines.append("  ".join(c.rjust(w) for c, w in zip(row, widths, strict=True)))
+    return "\n".join(lines)
+
+
+def render_csv(table: Table) -> str:
+    """CSV with the header lines as '#' comments and units in the column names."""
+    buffer = io.StringIO()
+    for line in table.header:
+        buffer.write(f"# {line}\n")
+    writer = csv.writer(buffer, lineterminator="\n")
+    writer.writerow(table.columns)
+    for row in table.rows:
+        writer.writerow([repr(float(v)) if isinstance(v, float | np.floating) else v
+                         for v in row])
+    return buffer.getvalue()
+
+
+def to_jsonable(value: Any) -> Any:
+    """Numbers, arrays and tuples as plain JSON values (non-finite numbers as strings)."""
+    if isinstance(value, dict):
+        return {str(k): to_jsonable(v) for k, v in value.items()}
+    if isinstance(value, list | tuple):
+        return [to_jsonable(v) for v in value]
+    if isinstance(value, np.ndarray):
+        return [to_jsonable(v) for v in value.tolist()]
+    if isinstance(value, np.generic):
+        value = value.item()
+    if isinstance(value, float) and not np.isfinite(value):
+        return str(value)
+    return value
+
+
+def render_json(document: dict[str, Any]) -> str:
+    return json.dumps(to_jsonable(document), indent=2)
+
+
+def write_atomic(path: str | Path, write: Callable[[Path], None]) -> None:
+    """Call ``write`` on a temporary file beside ``path``, then rename it into place.
+
+    A failure leaves no file (and no half-written file) behind.
+    """
+    target = Path(path)
+    target.parent.mkdir(parents=True, exist_ok=True)
+    handle, temporary = tempfile.mkstemp(prefix=f".{target.stem}-", suffix=target.suffix,
+                                         dir=target.parent)
+    os.close(handle)
+    try:
+        write(Path(temporary))
+        os.replace(temporary, target)
+    except BaseException:
+        Path(temporary).unlink(missing_ok=True)
+        raise
+
+
+def write_text_atomic(path: str | Path, text: str) -> None:
+    write_atomic(path, lambda p: p.write_text(text, encoding="utf-8"))
+
+
+def column(name: str, unit: str) -> str:
+    return f"{name} [{unit}]"
+
+
+def join_numbers(values: Sequence[float]) -> str:
+    return ", ".join(f"{v:g}" for v in values)
