@@ -1,10 +1,26 @@
-"""Load trains and published design live-load models; independent of the influence package."""
+"""Load trains and published design live-load models; independent of the influence package.
 
+Example:
+    >>> import vehicles
+    >>> model = vehicles.get_model("HL-93", units="kN-m")
+    >>> [case.name for case in model.cases]
+    ['design truck + lane', 'design tandem + lane', '90% truck pair + lane']
+    >>> truck = model.cases[0].train
+    >>> truck.arranged([9.0]).axle_offsets.round(4).tolist()  # rear gap 9 m
+    [0.0, 4.2672, 13.2672]
+"""
+
+from vehicles.adjust import adjusted
+from vehicles.catalog import get_model, library_names, load_model
 from vehicles.errors import VehicleError
-from vehicles.loadmodel import LoadCase, LoadModel, Scope
+from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
+from vehicles.modelwriter import write_model
 from vehicles.train import Arrangement, Axle, Patch, Train
+from vehicles.units import model_in
+from vehicles.vehiclefile import read_model
 
 __all__ = [
+    "Adjustment",
     "Arrangement",
     "Axle",
     "LoadCase",
@@ -13,4 +29,11 @@ __all__ = [
     "Scope",
     "Train",
     "VehicleError",
+    "adjusted",
+    "get_model",
+    "library_names",
+    "load_model",
+    "model_in",
+    "read_model",
+    "write_model",
 ]

@@ -20,9 +20,11 @@ from __future__ import annotations
 
 import difflib
 import functools
+from collections.abc import Mapping
 from importlib import resources
 from pathlib import Path
 
+from vehicles.adjust import adjusted
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadModel
 from vehicles.units import model_in
@@ -67,16 +69,18 @@ def get_model(name: str, units: str | None = None) -> LoadModel:
     by_key = {_key(known): model for known, model in _library().items()}
     model = by_key.get(_key(name))
     if model is None:
-        names = library_names()
-        close = difflib.get_close_matches(name, names, n=3, cutoff=0.4)
+        names = {_key(known): known for known in library_names()}
+        close = [names[key] for key in difflib.get_close_matches(_key(name), names, n=3,
+                                                                  cutoff=0.4)]
         hint = "did you mean: " + ", ".join(close) + "?" if close else (
-            "known: " + ", ".join(names))
+            "known: " + ", ".join(names.values()))
         raise VehicleError(f"no load model named '{name}'", source="library", fix=hint)
     return model if units is None else model_in(model, units)
 
 
-def load_model(name_or_path: str | Path, units: str | None = None) -> LoadModel:
-    """A load model from a library name or from a vehicle or model file.
+def load_model(name_or_path: str | Path, units: str | None = None,
+               adjust: Mapping[str, float] | None = None) -> LoadModel:
+    """A load model from a library name or from a vehicle or model file, ready for use.
 
     A ``Path``, an existing file or a name ending in ``.toml`` is read as a file; anything else
     is looked up in the library.
@@ -84,9 +88,18 @@ def load_model(name_or_path: str | Path, units: str | None = None) -> LoadModel:
     Args:
         name_or_path: library name or file path.
         units: "kN-m" or "kip-ft" to convert; None keeps the model's own units.
+        adjust: new values of the model's adjustments by name, such as {"alpha": 1.21} [-].
+
+    Example:
+        >>> model = load_model("LM71", units="kip-ft", adjust={"alpha": 1.1})
+        >>> round(model.cases[0].train.items[0].load, 3)  # 1.1 x 250 kN in kip
+        61.822
     """
     text = str(name_or_path)
     if isinstance(name_or_path, Path) or text.lower().endswith(".toml") or Path(text).is_file():
         model = read_model(text)
-        return model if units is None else model_in(model, units)
-    return get_model(text, units)
+    else:
+        model = get_model(text)
+    if adjust:
+        model = adjusted(model, adjust)
+    return model if units is None else model_in(model, units)

@@ -24,10 +24,9 @@ Example:
 from __future__ import annotations
 
 import math
-import os
-import tempfile
 from pathlib import Path
 
+from vehicles.atomic import written_whole
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel
 from vehicles.train import Axle, Patch, Span, Train
@@ -159,14 +158,9 @@ def write_model(model: LoadModel, path: str | Path) -> Path:
     Returns:
         The path written.
     """
-    path = Path(path)
     text = model_to_toml(model)
     try:
-        handle, temporary = tempfile.mkstemp(prefix=f".{path.name}.", dir=path.parent or ".")
-        with os.fdopen(handle, "w", encoding="utf-8") as stream:
-            stream.write(text)
-        os.replace(temporary, path)
+        return written_whole(path, lambda name: Path(name).write_text(text, encoding="utf-8"))
     except OSError as error:
         raise VehicleError(f"cannot write the file: {error.strerror}", source=str(path),
                            fix="give a path in a writable folder") from None
-    return path

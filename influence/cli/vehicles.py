@@ -1,0 +1,56 @@
+"""``influence vehicles``: list the library of load models, or show and draw one model."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import click
+
+from influence.cli import main
+from vehicles.catalog import library_models, load_model
+from vehicles.describe import details, summary
+from vehicles.tables import as_json, library_table, model_text
+from vehicles.units import SYSTEMS
+
+
+def _adjustments(values: tuple[str, ...]) -> dict[str, float]:
+    parsed = {}
+    for value in values:
+        name, equals, number = value.partition("=")
+        try:
+            parsed[name.strip()] = float(number)
+        except ValueError:
+            equals = ""
+        if not equals or not name.strip():
+            raise click.BadParameter(f"'{value}' is not NAME=VALUE (for example alpha=1.21)",
+                                     param_hint="--adjust")
+    return parsed
+
+
+@main.command("vehicles")
+@click.argument("name", required=False, metavar="[NAME|FILE]")
+@click.option("--units", type=click.Choice(list(SYSTEMS)), default=None,
+              help="Convert to these units (default: the model's own).")
+@click.option("--format", "output_format", type=click.Choice(["table", "json"]),
+              default="table", show_default=True, help="Output format.")
+@click.option("--plot", "plot_path", type=click.Path(dir_okay=False, path_type=Path),
+              help="Draw the model's trains to this image file (.png, .svg, .pdf).")
+@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
+              help="Give a model input a value, such as alpha=1.21 (repeatable).")
+def vehicles_command(name: str | None, units: str | None, output_format: str,
+                     plot_path: Path | None, adjust: tuple[str, ...]) -> None:
+    """List the library of design load models, or show one by NAME or vehicle FILE."""
+    if name is None:
+        if plot_path is not None or adjust:
+            raise click.UsageError("--plot and --adjust need a NAME or FILE")
+        rows = [summary(model) for model in library_models(units)]
+        click.echo(library_table(rows) if output_format == "table" else as_json(rows))
+        return
+    model = load_model(name, units, _adjustments(adjust))
+    description = details(model)
+    click.echo(model_text(description) if output_format == "table" else as_json(description))
+    if plot_path is not None:
+        from vehicles.plot import plot_model
+
+        plot_model(model, plot_path)
+        click.echo(f"drawing written to {plot_path}", err=True)
