@@ -1,0 +1,317 @@
+"""The exact effect of a fixed arrangement of loads as a function of the lead position.
+
+Conventions (DESIGN.md): loads act downward and are positive; the influence function gives the
+response per unit downward load at path chainage x [length] and is zero outside its breakpoints
+[x0, xn] (the train enters from off the structure and leaves completely). The lead position is
+the chainage of the train's reference point (offset 0, see :mod:`vehicles.train`). Travelling
+``"forward"`` (toward increasing chainage) an item at offset d stands at x - d; travelling
+``"reverse"`` it stands at x + d.
+
+For lead position x the effect of a load case is
+
+    E(x) = factor * [ (1 + axle_allowance) * sum_i P_i IL(pos_i)
+                      + (1 + patch_allowance) * sum_j q_j * integral of IL over patch j
+                      + (1 + lane_allowance) * (w * integral of the adverse part of IL off the
+                                                 train's cleared footprint + K * extreme ordinate) ]
+
+where the adverse part is the positive part of IL for the largest effect and the negative part
+for the smallest, with zero crossings found exactly from the piece polynomials. Every term is a
+shifted copy of IL, of its integral or of the integral of its adverse part, so E is an exact
+piecewise polynomial with breakpoints at the IL breakpoints shifted by every offset.
+
+Example:
+    >>> from scipy.interpolate import PPoly
+    >>> from vehicles.loadmodel import LoadCase
+    >>> from vehicles.train import Axle, Train
+    >>> span = 10.0  # [m]; moment at midspan of a simple span: peak ordinate L/4 [m]
+    >>> moment = PPoly([[0.5, -0.5], [0.0, 2.5]], [0.0, 5.0, 10.0])
+    >>> case = LoadCase("one axle", Train("P", (Axle(100.0),)))
+    >>> e = effect_function(moment, case, kind="moment", sense="max", direction="forward")
+    >>> float(e.ppoly()(5.0))  # the axle over midspan [kN m]
+    250.0
+    >>> float(e.ppoly()(10.0))  # the axle over the far support
+    0.0
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+import numpy as np
+from scipy.interpolate import PPoly
+
+from vehicles.errors import VehicleError
+from vehicles.loadmodel import RESPONSE_KINDS, SENSES, LoadCase
+from vehicles.piecewise import (
+    Pieces,
+    antiderivative,
+    extended_table,
+    horner,
+    pieces_from_ppoly,
+    roots_inside,
+    shifted_sum,
+    signed_part,
+    split_at_zeros,
+)
+from vehicles.train import Arrangement
+
+DIRECTIONS = ("forward", "reverse")
+
+# rows of PreparedInfluence.tables
+_LINE, _AREA, _POSITIVE_AREA, _NEGATIVE_AREA = range(4)
+
+
+@dataclass(frozen=True)
+class Ordinate:
+    """An extreme ordinate of an influence function: its value and chainage [length]."""
+
+    value: float
+    position: float
+
+
+@dataclass(frozen=True)
+class PreparedInfluence:
+    """An influence function made ready for many placements (build once, reuse for every case).
+
+    Attributes:
+        line: the influence function split at its zero crossings.
+        tables: extended coefficient tables of the line, its integral and the integrals of its
+            positive and negative parts, on the breakpoints of ``line``.
+        area, positive_area, negative_area: integrals over the path [response x length].
+        largest, smallest: extreme ordinates (one-sided limits at jumps count).
+        jumps: chainages where the line jumps [length].
+    """
+
+    line: Pieces
+    tables: np.ndarray
+    area: float
+    positive_area: float
+    negative_area: float
+    largest: Ordinate
+    smallest: Ordinate
+    jumps: np.ndarray
+
+    @property
+    def start(self) -> float:
+        """First chainage of the loaded path [length]."""
+        return float(self.line.breaks[0])
+
+    @property
+    def end(self) -> float:
+        """Last chainage of the loaded path [length]."""
+        return float(self.line.breaks[-1])
+
+    def adverse_area(self, sense: str) -> float:
+        """Integral of the positive (max) or negative (min) part [response x length]."""
+        return self.positive_area if sense == "max" else self.negative_area
+
+    def adverse_ordinate(self, sense: str) -> Ordinate | None:
+        """The extreme ordinate of the sought sign, or None if the line never has that sign."""
+        ordinate = self.largest if sense == "max" else self.smallest
+        return ordinate if (ordinate.value > 0 if sense == "max" else ordinate.value < 0) else None
+
+    def adverse_segments(self, sense: str) -> tuple[tuple[float, float], ...]:
+        """Maximal chainage intervals [length] where the line has the sought sign."""
+        middle = horner(self.line.coeffs, 0.5 * self.line.widths)
+        adverse = middle > 0 if sense == "max" else middle < 0
+        breaks = self.line.breaks
+        segments: list[tuple[float, float]] = []
+        for j in np.flatnonzero(adverse):
+            if segments and segments[-1][1] == breaks[j]:
+                segments[-1] = (segments[-1][0], float(breaks[j + 1]))
+            else:
+                segments.append((float(breaks[j]), float(breaks[j + 1])))
+        return tuple(segments)
+
+
+def prepare(influence: PPoly | PreparedInfluence) -> PreparedInfluence:
+    """Split an influence function at its zeros and tabulate its integrals (exact).
+
+    Args:
+        influence: response per unit downward load [response/force] against chainage [length].
+    """
+    if isinstance(influence, PreparedInfluence):
+        return influence
+    line = split_at_zeros(pieces_from_ppoly(influence))
+    area = antiderivative(line)
+    positive = antiderivative(signed_part(line, 1.0))
+    negative = antiderivative(signed_part(line, -1.0))
+    totals = [float(horner(p.coeffs[:, -1:], p.widths[-1:])[0]) for p in (area, positive, negative)]
+    degree = area.coeffs.shape[0] - 1
+    tables = np.stack([
+        extended_table(line, degree, 0.0),
+        extended_table(area, degree, totals[0]),
+        extended_table(positive, degree, totals[1]),
+        extended_table(negative, degree, totals[2]),
+    ])
+    largest, smallest = _extreme_ordinates(line)
+    left = np.concatenate([[0.0], line.end_values()])
+    right = np.concatenate([line.coeffs[0], [0.0]])
+    scale = max(float(np.abs(left).max()), float(np.abs(right).max()), 1e-300)
+    jumps = line.breaks[np.abs(left - right) > 1e-9 * scale]
+    return PreparedInfluence(line, tables, totals[0], totals[1], totals[2], largest, smallest,
+                             jumps)
+
+
+def _extreme_ordinates(line: Pieces) -> tuple[Ordinate, Ordinate]:
+    derivative = Pieces(line.breaks, line.coeffs[1:] * np.arange(1, line.coeffs.shape[0])[:, None])
+    stationary = roots_inside(derivative) if line.coeffs.shape[0] > 2 else np.zeros(0)
+    xs = np.concatenate([line.breaks[:-1], line.breaks[1:], stationary])
+    values = np.concatenate([line.coeffs[0], line.end_values(),
+                             line.values_at(stationary, side="right")])
+    high, low = int(np.argmax(values)), int(np.argmin(values))
+    return Ordinate(float(values[high]), float(xs[high])), Ordinate(float(values[low]),
+                                                                      float(xs[low]))
+
+
+@dataclass(frozen=True)
+class EffectFunction:
+    """The exact effect of one load case in one arrangement against the lead position.
+
+    Attributes:
+        pieces: E(x) [response x force] on its breakpoints (lead positions [length]), with a
+            constant piece before the train reaches the path and after it has left.
+        case: the load case.
+        kind: response kind (see ``vehicles.loadmodel.RESPONSE_KINDS``).
+        sense: "max" or "min": which part of the line the lane load covers.
+        direction: "forward" or "reverse".
+        arrangement: the train with every range fixed (None for a case without a train).
+    """
+
+    pieces: Pieces
+    case: LoadCase
+    kind: str
+    sense: str
+    direction: str
+    arrangement: Arrangement | None
+
+    def ppoly(self) -> PPoly:
+        """E as a scipy ``PPoly`` in the lead position [length]; constant beyond its ends."""
+        return self.pieces.ppoly()
+
+    @property
+    def travel_sign(self) -> float:
+        """-1 forward (items trail behind the lead), +1 reverse."""
+        return -1.0 if self.direction == "forward" else 1.0
+
+
+def check_request(kind: str, sense: str, direction: str) -> None:
+    """Raise a VehicleError for an unknown response kind, sense or direction."""
+    for value, allowed, what in ((kind, RESPONSE_KINDS, "kind"), (sense, SENSES, "sense"),
+                                 (direction, DIRECTIONS, "direction")):
+        if value not in allowed:
+            raise VehicleError(f"unknown {what} '{value}'", item=what,
+                               fix="use one of: " + ", ".join(allowed))
+
+
+def effect_function(
+    influence: PPoly | PreparedInfluence,
+    case: LoadCase,
+    *,
+    kind: str,
+    sense: str,
+    direction: str,
+    choices: Sequence[float] | None = None,
+) -> EffectFunction:
+    """The exact effect function E(lead position) of ``case`` on ``influence``.
+
+    Args:
+        influence: response per unit downward load against chainage [length].
+        case: load case (train, factors, lane and knife-edge loads).
+        kind: response kind, which picks the knife-edge load.
+        sense: "max" or "min", which picks the adverse parts for the lane and knife-edge loads.
+        direction: "forward" or "reverse".
+        choices: values of the train's ranged gaps and lengths [length] (default the minima).
+    """
+    check_request(kind, sense, direction)
+    prepared = prepare(influence)
+    arrangement = case.train.arranged(choices) if case.train is not None else None
+    which, shifts, weights, constant = effect_terms(prepared, case, arrangement, direction, sense)
+    constant += constant_terms(prepared, case, kind, sense)
+    return EffectFunction(
+        summed(prepared, which, shifts, weights, constant), case, kind, sense, direction,
+        arrangement,
+    )
+
+
+def _lane_is_cleared(case: LoadCase) -> bool:
+    return case.lane > 0 and case.lane_clear_of_train is not None and case.train is not None
+
+
+def summed(
+    prepared: PreparedInfluence,
+    which: np.ndarray,
+    shifts: np.ndarray,
+    weights: np.ndarray,
+    constant: float,
+) -> Pieces:
+    """The exact sum of the shifted terms plus a constant, as padded pieces."""
+    pad = max(prepared.end - prepared.start, 1.0)
+    if which.size == 0:
+        coeffs = np.zeros((prepared.tables.shape[1], 1))
+        coeffs[0] = constant
+        return Pieces(np.array([prepared.start - pad, prepared.end + pad]), coeffs)
+    pieces = shifted_sum(prepared.line.breaks, prepared.tables, which, shifts, weights, pad)
+    pieces.coeffs[0] += constant
+    return pieces
+
+
+def effect_terms(
+    prepared: PreparedInfluence,
+    case: LoadCase,
+    arrangement: Arrangement | None,
+    direction: str,
+    sense: str,
+) -> tuple[np.ndarray, np.ndarray, np.ndarray, float]:
+    """The varying terms of E: (table row, shift [length], weight) per term, plus constants.
+
+    Axles are shifted copies of the line; a patch over offsets [a, b] is the difference of two
+    shifted copies of its integral (a copy shifted to infinity is a constant). With
+    ``lane_clear_of_train`` the lane is taken off the cleared footprint the same way, using the
+    integral of the adverse part.
+    """
+    if arrangement is None:
+        return np.zeros(0, dtype=int), np.zeros(0), np.zeros(0), 0.0
+    sign = -1.0 if direction == "forward" else 1.0
+    rows: list[np.ndarray] = [np.full(arrangement.axle_offsets.size, _LINE)]
+    shifts: list[np.ndarray] = [sign * arrangement.axle_offsets]
+    weights: list[np.ndarray] = [case.factor * (1 + case.axle_allowance) * arrangement.axle_loads]
+    patch_weights = case.factor * (1 + case.patch_allowance) * arrangement.patch_intensities
+    intervals: list[tuple[np.ndarray, np.ndarray, np.ndarray, int]] = [
+        (arrangement.patch_starts, arrangement.patch_ends, patch_weights, _AREA)
+    ]
+    if _lane_is_cleared(case):
+        front, rear = arrangement.extent
+        clear = float(case.lane_clear_of_train or 0.0)
+        intensity = -case.factor * (1 + case.lane_allowance) * case.lane
+        row = _POSITIVE_AREA if sense == "max" else _NEGATIVE_AREA
+        intervals.append((np.array([front - clear]), np.array([rear + clear]),
+                          np.array([intensity]), row))
+    constant = 0.0
+    for starts, ends, intensities, row in intervals:
+        low = np.minimum(sign * starts, sign * ends)
+        high = np.maximum(sign * starts, sign * ends)
+        for ends_at, side in ((high, 1.0), (low, -1.0)):
+            finite = np.isfinite(ends_at)
+            rows.append(np.full(int(finite.sum()), row))
+            shifts.append(ends_at[finite])
+            weights.append(side * intensities[finite])
+            # an end at +infinity reaches past the path: the integral's full value
+            constant += float((side * intensities[~finite] * (ends_at[~finite] > 0)).sum()
+                              * prepared.tables[row, 0, -1])
+    return np.concatenate(rows), np.concatenate(shifts), np.concatenate(weights), constant
+
+
+def constant_terms(prepared: PreparedInfluence, case: LoadCase, kind: str, sense: str) -> float:
+    """The lane load on the whole adverse area and the knife-edge load at the extreme ordinate.
+
+    A cleared footprint is subtracted by the varying terms of :func:`effect_terms`.
+    """
+    scale = case.factor * (1 + case.lane_allowance)
+    total = scale * case.lane * prepared.adverse_area(sense)
+    ordinate = prepared.adverse_ordinate(sense)
+    knife = case.knife_edge_for(kind)
+    if ordinate is not None and knife > 0:
+        total += scale * knife * ordinate.value
+    return total
