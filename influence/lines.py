@@ -34,6 +34,9 @@ NOISE = 1e-14
 """A term of a piece smaller than this fraction [-] of the line's largest term is round-off of the
 solve (a reaction line that should end at exactly zero, say) and is set to zero."""
 
+SNAP = 1e-12
+"""Relative distance [-] within which a load chainage is taken to stand on a breakpoint."""
+
 ROOT_TOLERANCE = 1e-12
 """Imaginary part [-] (relative) below which a polynomial root is taken as real."""
 
@@ -85,6 +88,11 @@ class InfluenceLine:
     def values(self, positions: np.ndarray | list[float], side: str = "right") -> np.ndarray:
         """Ordinates at load chainages; at a jump ``side`` picks the left or right limit."""
         x = np.atleast_1d(np.asarray(positions, dtype=float))
+        # a chainage within round-off of a breakpoint is that breakpoint (so sides are honoured)
+        nearest = np.clip(np.searchsorted(self.breakpoints, x), 1, len(self.breakpoints) - 1)
+        for candidate in (nearest - 1, nearest):
+            snap = np.abs(x - self.breakpoints[candidate]) <= SNAP * max(self.length, 1.0)
+            x = np.where(snap, self.breakpoints[candidate], x)
         pieces = np.searchsorted(self.breakpoints, x, side="left" if side == "left" else "right") - 1
         pieces = np.clip(pieces, 0, len(self.coefficients) - 1)
         local = x - self.breakpoints[pieces]

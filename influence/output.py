@@ -83,7 +83,7 @@ def render_json(document: dict[str, Any]) -> str:
     return json.dumps(to_jsonable(document), indent=2)
 
 
-def write_atomic(path: str | Path, write: Callable[[Path], None]) -> None:
+def write_atomic(path: str | Path, write: Callable[[Path], object]) -> None:
     """Call ``write`` on a temporary file beside ``path``, then rename it into place.
 
     A failure leaves no file (and no half-written file) behind.

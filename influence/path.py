@@ -6,10 +6,12 @@ position a = length - (c - leg start).
 
 Example:
     >>> from influence.model import Member, Model, Node, PathLeg, Support
-    >>> nodes = (Node("A", 0, 0, Support.named("pinned")), Node("B", 10, 0, Support.named("roller")),
+    >>> nodes = (Node("A", 0, 0, Support.named("pinned")),
+    ...          Node("B", 10, 0, Support.named("roller")),
     ...          Node("C", 25, 0, Support.named("roller")))
     >>> members = (Member("AB", "A", "B", 1.0, 1.0), Member("CB", "C", "B", 1.0, 1.0))
-    >>> path = trace(Model("two spans", "kN-m", nodes, members, (PathLeg("AB"), PathLeg("CB", True))))
+    >>> legs = (PathLeg("AB"), PathLeg("CB", True))
+    >>> path = trace(Model("two spans", "kN-m", nodes, members, legs))
     >>> path.total_length, path.node_chainage("B"), path.locate(17.0)
     (25.0, 10.0, (1, 8.0))
 """
@@ -158,7 +160,9 @@ def orient(
     return tuple(legs)
 
 
-def route(members: tuple[Member, ...], start: str, end: str, source: str = "") -> tuple[PathLeg, ...]:
+def route(
+    members: tuple[Member, ...], start: str, end: str, source: str = ""
+) -> tuple[PathLeg, ...]:
     """The path from node ``start`` to node ``end`` through deck members (shortest by length
     count of members), each leg oriented along the way travelled."""
     graph = nx.MultiGraph()

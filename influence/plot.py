@@ -58,9 +58,11 @@ def save(ax: Axes, path: str | Path) -> None:
     if suffix not in SAVE_FORMATS:
         from influence.errors import InfluenceError
 
-        raise InfluenceError(f"cannot draw to {suffix or 'a file without extension'}",
-                             source=str(path), item="--plot", fix="end the name in .png, .svg or .pdf")
-    figure = ax.get_figure()
+        raise InfluenceError(
+            f"cannot draw to {suffix or 'a file without extension'}", source=str(path),
+            item="--plot", fix="end the name in .png, .svg or .pdf",
+        )
+    figure: Any = ax.get_figure()
     write_atomic(path, lambda p: figure.savefig(p, dpi=150, format=suffix[1:]))
     _pyplot().close(figure)
 

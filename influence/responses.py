@@ -20,6 +20,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
 
@@ -114,20 +115,20 @@ def resolve_many(structure: Structure, path: PathGeometry,
 
 
 def _extraction_parts(structure: Structure, path: PathGeometry,
-                      response: Response) -> tuple[np.ndarray, np.ndarray, dict[str, object]]:
+                      response: Response) -> tuple[np.ndarray, np.ndarray, dict[str, Any]]:
     """(extraction vector g, direct weights on restrained unknowns, extra Extraction fields)."""
     size = len(structure.unknowns)
     g = np.zeros(size)
     direct = np.zeros(size)
     model = structure.model
     if response.kind == "reaction":
-        node = _node_for_support(structure, path, response)
+        support = _node_for_support(structure, path, response)
         direction = _DIRECTION_OF[response.component]
-        dof = structure.unknown(node, direction)
-        restraint = model.node(node).support.restraint(direction)
+        dof = structure.unknown(support, direction)
+        restraint = model.node(support).support.restraint(direction)
         if dof is None or restraint == "free":
             raise LocationError(
-                f"node {node} has no {response.component} restraint", source=model.source,
+                f"node {support} has no {response.component} restraint", source=model.source,
                 item=response.location, fix="ask for a component that the support restrains",
             )
         if restraint == "fixed":
@@ -135,7 +136,7 @@ def _extraction_parts(structure: Structure, path: PathGeometry,
             direct[dof] = -1.0
         else:
             g[dof] = -float(restraint)
-        chainage = path.node_chainage(node)
+        chainage = path.node_chainage(support)
         ends = (0.0, path.total_length)
         interior = chainage is not None and all(
             abs(chainage - end) > CHAINAGE_TOLERANCE * max(path.total_length, 1.0) for end in ends
@@ -179,7 +180,7 @@ def _extraction_parts(structure: Structure, path: PathGeometry,
         if dof >= 0:
             g[dof] += member_g[k]
     on_path = any(leg.member == member for leg in path.legs)
-    extra: dict[str, object] = {"section_chainage": chainage}
+    extra: dict[str, Any] = {"section_chainage": chainage}
     if on_path:
         extra.update(own_member=member, own_position=position,
                      own_rules=(np.asarray(behind), np.asarray(ahead)))

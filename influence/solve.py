@@ -103,7 +103,8 @@ class Structure:
         single = extraction.ndim == 1
         columns = extraction[:, None] if single else extraction
         result = np.zeros_like(columns)
-        result[self.free] = scipy.linalg.lu_solve(self._factor, columns[self.free])
+        if self.free.size:
+            result[self.free] = scipy.linalg.lu_solve(self._factor, columns[self.free])
         return result[:, 0] if single else result
 
     @cached_property
@@ -155,7 +156,8 @@ def analyse(model: Model) -> Structure:
 
     free = np.flatnonzero(~restrained)
     _check_stable(model, unknowns, stiffness, free)
-    factor = scipy.linalg.lu_factor(stiffness[np.ix_(free, free)], check_finite=False)
+    held = stiffness[np.ix_(free, free)] if free.size else np.eye(1)
+    factor = scipy.linalg.lu_factor(held, check_finite=False)
     return Structure(model, tuple(unknowns), restrained, springs, frames, stiffness, factor)
 
 
@@ -172,6 +174,8 @@ def _nodes_with_rotation(model: Model) -> set[str]:
 
 def _check_stable(model: Model, unknowns: list[Unknown], stiffness: np.ndarray,
                   free: np.ndarray) -> None:
+    if free.size == 0:
+        return
     free_stiffness = stiffness[np.ix_(free, free)]
     diagonal = np.diag(free_stiffness).copy()
     loose = np.flatnonzero(diagonal <= 0)
@@ -202,6 +206,12 @@ def _mechanism(model: Model, moving: list[Unknown]) -> MechanismError:
             f"the truss is unstable: node(s) {shown} can move {how} without straining any bar",
             source=model.source, item="structure",
             fix="add a bar or a support so that every panel is triangulated and the truss is held",
+        )
+    if model.form == "beam" and directions == ["ux"]:
+        return MechanismError(
+            "the beam can slide horizontally: no support holds it along its axis",
+            source=model.source, item="supports",
+            fix="make one support pinned (or fixed)",
         )
     if model.form == "beam":
         return MechanismError(

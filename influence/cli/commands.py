@@ -1,3 +1,5 @@
 """Registers every command module with the ``influence`` group."""
-from influence.cli import lines  # noqa: F401
-from influence.cli import vehicles  # noqa: F401
+from influence.cli import (
+    lines,  # noqa: F401
+    vehicles,  # noqa: F401
+)
