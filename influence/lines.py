@@ -93,7 +93,8 @@ class InfluenceLine:
         for candidate in (nearest - 1, nearest):
             snap = np.abs(x - self.breakpoints[candidate]) <= SNAP * max(self.length, 1.0)
             x = np.where(snap, self.breakpoints[candidate], x)
-        pieces = np.searchsorted(self.breakpoints, x, side="left" if side == "left" else "right") - 1
+        rule = "left" if side == "left" else "right"
+        pieces = np.searchsorted(self.breakpoints, x, side=rule) - 1
         pieces = np.clip(pieces, 0, len(self.coefficients) - 1)
         local = x - self.breakpoints[pieces]
         result = P.polyval(local, self.coefficients[pieces].T, tensor=False)
