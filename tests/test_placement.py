@@ -1,0 +1,188 @@
+"""The governing search: cases and scopes, directions, distinct peaks, ranged gaps, jumps.
+
+Closed forms: the two-equal-span support moment M_B = -ab(L + a)/(4L^2), extreme ordinate
+-L/(6 sqrt 3) at a = L/sqrt 3 in each span (piping-designer / AISC two-span case; REFERENCES.md
+section 1, confirmed + computed); simple-span lines of Fanous (ISU).
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from tests.influence_forms import (
+    continuous_moment,
+    continuous_reaction,
+    simple_moment,
+    simple_reaction,
+    simple_shear,
+)
+from tests.section_scan import axle_train, one_case
+from vehicles.errors import VehicleError
+from vehicles.loadmodel import LoadCase, LoadModel, Scope
+from vehicles.placement import govern
+from vehicles.train import Axle, Train
+
+EXACT = 1e-9
+L = 20.0  # [m]
+SUPPORT_MOMENT = continuous_moment([L, L], L)  # M_B of two equal spans
+PEAK_ORDINATE = -L / (6 * math.sqrt(3))  # at L/sqrt(3) from either end support
+
+
+def test_worst_case_of_a_model_is_chosen_and_named():
+    model = LoadModel("M", "two cases", "kN-m", (
+        LoadCase("light", axle_train([10.0], [])),
+        LoadCase("heavy", axle_train([25.0], [])),
+    ))
+    result = govern(simple_moment(L, 5.0), model, kind="moment")
+    assert result.max.case == "heavy"
+    assert result.max.model == "M"
+    assert result.max.value == pytest.approx(25.0 * 5.0 * 15.0 / L, rel=EXACT)
+
+
+def test_scope_limits_a_case_to_its_responses():
+    """A case scoped to negative moment and interior reactions (the form of AASHTO LRFD
+    3.6.1.3.1's truck pair, from memory) counts only there."""
+    pair = LoadCase("pair", axle_train([100.0, 100.0], [8.0]), factor=0.9,
+                    scope=Scope(("negative moment", "interior reaction")))
+    single = LoadCase("single", axle_train([100.0], []))
+    model = LoadModel("M", "scoped", "kN-m", (single, pair))
+    result = govern(SUPPORT_MOMENT, model, kind="moment")
+    assert result.max.case == "single"  # the pair is not asked for sagging moments
+    assert result.min.case == "pair"
+    end_reaction = govern(continuous_reaction([L, L], 0), model, kind="reaction")
+    assert {p.case for p in (end_reaction.max, end_reaction.min)} == {"single"}
+    inner = govern(continuous_reaction([L, L], 1), model, kind="reaction", interior=True)
+    assert inner.max.case == "pair"
+
+
+def test_no_applicable_case_gives_none():
+    only_negative = LoadModel("M", "neg", "kN-m", (
+        LoadCase("c", axle_train([1.0], []), scope=Scope(("negative moment",))),))
+    result = govern(simple_moment(L, 5.0), only_negative, kind="moment")
+    assert result.max is None and result.top_max == ()
+    assert result.min is not None
+
+
+def test_support_moment_peaks_are_distinct_one_per_span():
+    """One axle on M_B: two separate troughs, one in each span, each P L/(6 sqrt 3)."""
+    P = 100.0
+    result = govern(SUPPORT_MOMENT, one_case(axle_train([P], [])), kind="moment", top=4,
+                    directions=("forward",))
+    troughs = result.top_min
+    assert len(troughs) == 2
+    positions = sorted(t.axle_positions[0] for t in troughs)
+    assert positions == pytest.approx([L / math.sqrt(3), 2 * L - L / math.sqrt(3)], rel=1e-9)
+    for trough in troughs:
+        assert trough.value == pytest.approx(P * PEAK_ORDINATE, rel=EXACT)
+
+
+def test_ranged_gap_is_optimised_and_reported():
+    """Two equal axles with a gap range on M_B: the worst gap puts each axle over its span's
+    extreme ordinate, 2L - 2L/sqrt 3 apart; the effect is 2 P L/(6 sqrt 3)."""
+    P = 100.0
+    train = Train("pair", (Axle(P), Axle(P, (2.0, 30.0))))
+    result = govern(SUPPORT_MOMENT, one_case(train), kind="moment", gap_tolerance=1e-6)
+    best = result.min
+    assert best.value == pytest.approx(2 * P * PEAK_ORDINATE, rel=1e-9)
+    # the effect is flat at its optimum: a gap error e changes it by about P e^2 / L, so the gap
+    # is fixed only to about the square root of the value's rounding
+    assert best.gaps[0].value == pytest.approx(2 * L - 2 * L / math.sqrt(3), abs=1e-2)
+    assert (best.gaps[0].low, best.gaps[0].high) == (2.0, 30.0)
+
+
+def test_range_end_is_kept_when_it_governs():
+    """Positive moment at midspan of a simple span: the tighter the rear axles, the larger, so
+    the range minimum is used (AASHTO truck rear spacing 14-30 ft; common practice)."""
+    truck = Train("truck", (Axle(8.0), Axle(32.0, 14.0), Axle(32.0, (14.0, 30.0))))
+    result = govern(simple_moment(100.0, 50.0), one_case(truck, units="kip-ft"), kind="moment")
+    assert result.max.gaps[0].value == 14.0
+
+
+def test_shear_at_the_section_takes_the_worse_limit_and_says_so():
+    """Simple span shear at c: an axle exactly over the section takes (L - c)/L, not -c/L."""
+    c, P = 5.0, 10.0
+    result = govern(simple_shear(L, c), one_case(axle_train([P], [])), kind="shear", section=c)
+    assert result.max.value == pytest.approx(P * (L - c) / L, rel=EXACT)
+    assert result.max.section_axle == 0
+    assert result.max.axles_at_jump == (0,)
+    assert result.max.limit_side == "right"
+    assert result.min.value == pytest.approx(-P * c / L, rel=EXACT)
+    assert result.min.limit_side == "left"
+
+
+def test_reaction_with_axle_on_the_support():
+    """The first axle standing exactly on the end support gives the full reaction."""
+    result = govern(simple_reaction(L), one_case(axle_train([10.0, 10.0], [4.0])),
+                    kind="reaction", directions=("reverse",))
+    assert result.max.value == pytest.approx(10.0 + 10.0 * (L - 4.0) / L, rel=EXACT)
+    assert 0.0 in result.max.axle_positions
+
+
+def test_lane_segments_are_the_adverse_parts():
+    """Lane on M_B for the minimum: both spans are hogging (the whole path)."""
+    result = govern(SUPPORT_MOMENT, one_case(None, lane=10.0), kind="moment")
+    assert result.min.lane_segments == ((0.0, 2 * L),)
+    # integral of -ab(L + a)/(4L^2) over a span is -L^2/16; two spans
+    assert result.min.value == pytest.approx(10.0 * -(L**2) / 8, rel=EXACT)
+    assert result.max.value == 0.0 and result.max.lane_segments == ()
+
+
+def test_knife_edge_at_the_extreme_ordinate():
+    result = govern(SUPPORT_MOMENT, one_case(None, lane=1.0, knife_edge_moment=50.0),
+                    kind="moment")
+    position = result.min.knife_edge_position
+    assert min(position, 2 * L - position) == pytest.approx(L / math.sqrt(3), rel=1e-9)
+    assert result.min.value == pytest.approx(-(L**2) / 8 + 50.0 * PEAK_ORDINATE, rel=EXACT)
+
+
+def test_factored_loads_are_reported():
+    case = LoadCase("c", axle_train([10.0, 20.0], [3.0]), factor=0.9, axle_allowance=0.33)
+    found = govern(simple_moment(L, 7.0), LoadModel("M", "m", "kN-m", (case,)),
+                   kind="moment").max
+    assert found.axle_loads == pytest.approx((10.0 * 0.9 * 1.33, 20.0 * 0.9 * 1.33), rel=EXACT)
+
+
+@given(
+    loads=st.lists(st.floats(1.0, 100.0), min_size=1, max_size=4),
+    gaps=st.lists(st.floats(0.5, 15.0), min_size=3, max_size=3),
+)
+@settings(max_examples=20, deadline=None)
+def test_reversal_symmetry_of_a_symmetric_line(loads, gaps):
+    """On a line symmetric about midspan, running forward equals running in reverse (the mirror
+    image of the placement), for both extremes."""
+    train = axle_train(loads, gaps[: len(loads) - 1])
+    model = one_case(train)
+    ahead = govern(SUPPORT_MOMENT, model, kind="moment", directions=("forward",))
+    back = govern(SUPPORT_MOMENT, model, kind="moment", directions=("reverse",))
+    for a, b in ((ahead.max, back.max), (ahead.min, back.min)):
+        assert a.value == pytest.approx(b.value, rel=1e-9, abs=1e-9)
+        # the mirror image of the forward placement is a reverse placement of the same value
+        mirrored = np.array([2 * L - x for x in a.axle_positions])
+        on = (mirrored >= 0) & (mirrored <= 2 * L)
+        direct = float(np.sum(np.array(a.axle_loads)[on] * SUPPORT_MOMENT(mirrored[on])))
+        assert direct == pytest.approx(b.value, rel=1e-9, abs=1e-9)
+
+
+def test_bad_request_is_a_clear_error():
+    with pytest.raises(VehicleError, match="top"):
+        govern(SUPPORT_MOMENT, one_case(axle_train([1.0], [])), kind="moment", top=0)
+    with pytest.raises(VehicleError, match="unknown kind 'torque'"):
+        govern(SUPPORT_MOMENT, one_case(axle_train([1.0], [])), kind="torque")
+
+
+def test_values_match_the_effect_at_the_reported_positions():
+    """Every top placement's value is the sum of its axle loads times ordinates."""
+    line = continuous_moment([L, 1.3 * L, L], 1.5 * L)
+    result = govern(line, one_case(axle_train([30.0, 60.0, 60.0], [4.0, 6.0])),
+                    kind="moment", top=3)
+    for placement in (*result.top_max, *result.top_min):
+        positions = np.array(placement.axle_positions)
+        inside = (positions >= 0) & (positions <= line.x[-1])
+        direct = float(np.sum(np.array(placement.axle_loads)[inside] * line(positions[inside])))
+        assert placement.value == pytest.approx(direct, rel=1e-9, abs=1e-9)
+    assert len({round(p.lead_position, 6) for p in result.top_max}) == len(result.top_max)
