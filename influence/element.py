@@ -72,6 +72,8 @@ class MemberLaw:
         EI: bending stiffness [force * length^2].
         release_start: moment release (hinge) at the start node.
         release_end: moment release at the end node.
+        sliding_end: the end node does not hold the member along its axis (an expansion bearing
+            of a stringer): no axial force passes there.
     """
 
     length: float
@@ -79,6 +81,7 @@ class MemberLaw:
     EI: float
     release_start: bool = False
     release_end: bool = False
+    sliding_end: bool = False
 
     @cached_property
     def _solution(self) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
@@ -88,10 +91,15 @@ class MemberLaw:
         by_d = np.zeros((4, 6))
         by_axial = np.zeros((4, TERMS))
         by_transverse = np.zeros((4, TERMS))
-        # far-end axial displacement
-        system[0, _N0] = L
-        by_d[0, [0, 3]] = -EA, EA
-        by_axial[0] = bracket(L, 1)
+        if self.sliding_end:
+            # no axial force at the far end: N0 - p_axial = 0
+            system[0, _N0] = 1.0
+            by_axial[0] = bracket(L, 0)
+        else:
+            # far-end axial displacement
+            system[0, _N0] = L
+            by_d[0, [0, 3]] = -EA, EA
+            by_axial[0] = bracket(L, 1)
         # far-end transverse displacement
         system[1, [_THETA0, _M0, _V0]] = EI * L, L**2 / 2, L**3 / 6
         by_d[1, [1, 4]] = -EI, EI

@@ -128,6 +128,8 @@ class Member:
         EI: bending stiffness [force * length^2].
         release_start: moment release at the start.
         release_end: moment release at the end.
+        sliding_end: the end node does not hold the member along its axis (an expansion bearing,
+            as under one end of a stringer), so the member carries no axial force.
         deck: whether the travel path may use this member when routed between two nodes.
     """
 
@@ -138,6 +140,7 @@ class Member:
     EI: float
     release_start: bool = False
     release_end: bool = False
+    sliding_end: bool = False
     deck: bool = False
 
     def __post_init__(self) -> None:

@@ -26,6 +26,7 @@ General form::
     EA = 8.0e6                        # or E and A
     release_start = false             # moment release (hinge) at an end
     release_end = false
+    sliding_end = false               # true: an expansion bearing at the end (no axial force)
     bar = false                       # true: released at both ends (a truss bar)
     deck = true                       # the path may route along it
     [path]
@@ -53,7 +54,7 @@ TOP_KEYS = {"title", "units", "beam", "nodes", "members", "path", "loads", "comb
 BEAM_KEYS = {"spans", "EI", "EA", "supports", "names", "hinges"}
 NODE_KEYS = {"name", "x", "y", "support"}
 MEMBER_KEYS = {"name", "start", "end", "EI", "EA", "E", "I", "A", "release_start",
-               "release_end", "bar", "deck"}
+               "release_end", "sliding_end", "bar", "deck"}
 PATH_KEYS = {"members", "start", "end"}
 SPRING_WORDS = {"horizontal": "ux", "vertical": "uy", "rotational": "rz"}
 
@@ -158,6 +159,7 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
             EI=_stiffness(entry, "EI", "I", item, source, default=None if not bar else 1.0),
             release_start=bar or bool(entry.get("release_start", False)),
             release_end=bar or bool(entry.get("release_end", False)),
+            sliding_end=bool(entry.get("sliding_end", False)),
             deck=bool(entry.get("deck", False)),
         ))
     if not nodes or not members:

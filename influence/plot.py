@@ -133,9 +133,16 @@ def _draw_supports_under_axis(ax: Axes, model: Model, y: np.ndarray) -> None:
     ax.set_ylim(bottom=base - 3.0 * size)
 
 
-def _support_glyph(ax: Axes, x: float, y: float, size: float, length: float, kind: str) -> None:
+def _support_glyph(ax: Axes, x: float, y: float, size: float, length: float, kind: str,
+                   ground: bool = False) -> None:
+    """A support symbol; a fixed support is a wall (beam end) or, with ``ground``, a footing."""
     half = 0.012 * length
     colour = PALETTE["structure"]
+    if kind == "fixed" and ground:
+        ax.plot([x - 1.5 * half, x + 1.5 * half], [y, y], color=colour, linewidth=3)
+        for tick in np.linspace(x - 1.5 * half, x + 1.5 * half, 5):
+            ax.plot([tick, tick - 0.5 * half], [y, y - 0.6 * size], color=colour, linewidth=0.8)
+        return
     if kind == "fixed":
         ax.plot([x, x], [y - size, y + size], color=colour, linewidth=3)
         return
@@ -150,6 +157,19 @@ def _support_glyph(ax: Axes, x: float, y: float, size: float, length: float, kin
                     color=colour)
 
 
+def _pin_joints(model: Model) -> set[str]:
+    """Nodes where every member end is released (drawn as open circles)."""
+    continuous = set()
+    touched = set()
+    for member in model.members:
+        touched.update((member.start, member.end))
+        if not member.release_start:
+            continuous.add(member.start)
+        if not member.release_end:
+            continuous.add(member.end)
+    return touched - continuous
+
+
 def draw_structure(model: Model, ax: Axes | None = None) -> Axes:
     """Draw members (bars thinner), supports, releases, the travel path and the names."""
     ax = ax if ax is not None else new_axes(9.0, 5.0)
@@ -158,6 +178,8 @@ def draw_structure(model: Model, ax: Axes | None = None) -> Axes:
     xs = [n.x for n in model.nodes]
     ys = [n.y for n in model.nodes]
     extent = max(max(xs) - min(xs), max(ys) - min(ys), 1.0)
+    seen_pairs: set[frozenset[str]] = set()
+    pinned_nodes = _pin_joints(model)
     for member in model.members:
         a, b = model.node(member.start), model.node(member.end)
         colour = PALETTE["bar"] if member.is_bar else PALETTE["structure"]
@@ -167,21 +189,28 @@ def draw_structure(model: Model, ax: Axes | None = None) -> Axes:
             ax.plot([a.x, b.x], [a.y, b.y], color=PALETTE["path"], linewidth=5, alpha=0.35,
                     zorder=1, solid_capstyle="butt")
         for released, near, far in ((member.release_start, a, b), (member.release_end, b, a)):
-            if released:
+            if released and near.name not in pinned_nodes:
                 t = 0.025 * extent / max(model.length_of(member.name), 1e-9)
                 px, py = near.x + (far.x - near.x) * t, near.y + (far.y - near.y) * t
                 ax.plot([px], [py], "o", markersize=4.5, markerfacecolor="white",
                         markeredgecolor=colour, zorder=3)
+        pair = frozenset((member.start, member.end))
+        below = pair in seen_pairs  # a second member on the same nodes: label it underneath
+        seen_pairs.add(pair)
         ax.annotate(member.name, ((a.x + b.x) / 2, (a.y + b.y) / 2), fontsize=7,
-                    color=PALETTE["line"], ha="center", va="bottom", xytext=(0, 3),
-                    textcoords="offset points")
+                    color=PALETTE["path"] if member.name in on_path else PALETTE["line"],
+                    ha="center", va="top" if below else "bottom",
+                    xytext=(0, -4 if below else 3), textcoords="offset points")
     for node in model.nodes:
-        ax.plot([node.x], [node.y], "s", markersize=3, color=PALETTE["structure"], zorder=4)
-        ax.annotate(node.name, (node.x, node.y), fontsize=7, xytext=(3, -9),
+        pin = node.name in pinned_nodes
+        ax.plot([node.x], [node.y], "o" if pin else "s", markersize=5 if pin else 3,
+                markerfacecolor="white" if pin else PALETTE["structure"],
+                markeredgecolor=PALETTE["structure"], zorder=4)
+        ax.annotate(node.name, (node.x, node.y), fontsize=7, xytext=(4, 4),
                     textcoords="offset points", color=PALETTE["structure"])
         if node.support.is_support:
             _support_glyph(ax, node.x, node.y, 0.03 * extent, extent * 2.0,
-                           node.support.description)
+                           node.support.description, ground=True)
     ax.set_aspect("equal", adjustable="datalim")
     names = labels(model.units)
     ax.set_xlabel(f"x [{names.length}]")

@@ -111,7 +111,8 @@ class Structure:
     def static_indeterminacy(self) -> int:
         """Degree of static indeterminacy: force unknowns less equilibrium equations."""
         member_forces = sum(
-            3 - frame.law.release_start - frame.law.release_end for frame in self.frames.values()
+            3 - frame.law.release_start - frame.law.release_end - frame.law.sliding_end
+            for frame in self.frames.values()
         )
         reactions = int(self.restrained.sum() + (self.springs > 0).sum())
         return member_forces + reactions - len(self.unknowns)
@@ -145,7 +146,7 @@ def analyse(model: Model) -> Structure:
     for member in model.members:
         cosine, sine = model.direction_of(member.name)
         law = MemberLaw(model.length_of(member.name), member.EA, member.EI,
-                        member.release_start, member.release_end)
+                        member.release_start, member.release_end, member.sliding_end)
         dofs = tuple(index.get((node, d), -1) for node in (member.start, member.end)
                      for d in DIRECTIONS)
         frame = MemberFrame(member.name, law, cosine, sine, dofs)

@@ -80,6 +80,8 @@ def summarise(model: Model) -> ModelSummary:
     for member in model.members:
         releases = {(False, False): "", (True, False): "start", (False, True): "end",
                     (True, True): "both"}[(member.release_start, member.release_end)]
+        if member.sliding_end:
+            releases = (releases + ", " if releases else "") + "slides at end"
         members.append(MemberRow(member.name, member.start, member.end,
                                  model.length_of(member.name), member.EI, member.EA, releases,
                                  member.name in on_path))

@@ -47,10 +47,10 @@ def vehicles_command(name: str | None, units: str | None, output_format: str,
         click.echo(library_table(rows) if output_format == "table" else as_json(rows))
         return
     model = load_model(name, units, _adjustments(adjust))
-    description = details(model)
-    click.echo(model_text(description) if output_format == "table" else as_json(description))
     if plot_path is not None:
         from vehicles.plot import plot_model
 
         plot_model(model, plot_path)
         click.echo(f"drawing written to {plot_path}", err=True)
+    description = details(model)
+    click.echo(model_text(description) if output_format == "table" else as_json(description))
