@@ -67,3 +67,9 @@ def test_usage_errors_have_status_2() -> None:
     assert run("--plot", "x.png")[0] == 2
     assert run("LM71", "--adjust", "alpha")[0] == 2
     assert run("LM71", "--units", "lb-in")[0] == 2
+
+
+def test_a_bad_drawing_name_fails_before_any_output(tmp_path: Path) -> None:
+    code, out, err = run("LM2", "--plot", str(tmp_path / "drawing.xyz"))
+    assert code == 1 and out == "" and "'.xyz'" in err
+    assert list(tmp_path.iterdir()) == []

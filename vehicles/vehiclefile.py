@@ -240,7 +240,7 @@ class _Reader:
 
     def case(self, raw: Mapping[str, Any], where: str, named: Mapping[str, Train]) -> LoadCase:
         name = self.text(raw.get("name", ""), f"{where} name") or where
-        where = f"case '{name}'" if "name" in raw else where
+        where = f"case '{name}'" if "name" in raw and where.startswith("[[") else where
         train: Train | None = None
         reference = raw.get("train")
         has_inline = any(key in raw for key in TRAIN_KEYS)
