@@ -159,8 +159,8 @@ def _support_glyph(ax: Axes, x: float, y: float, size: float, length: float, kin
 
 def _pin_joints(model: Model) -> set[str]:
     """Nodes where every member end is released (drawn as open circles)."""
-    continuous = set()
-    touched = set()
+    continuous: set[str] = set()
+    touched: set[str] = set()
     for member in model.members:
         touched.update((member.start, member.end))
         if not member.release_start:
