@@ -19,6 +19,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from functools import cached_property
+from typing import Literal
 
 import numpy as np
 from numpy.polynomial import polynomial as P
@@ -93,7 +94,7 @@ class InfluenceLine:
         for candidate in (nearest - 1, nearest):
             snap = np.abs(x - self.breakpoints[candidate]) <= SNAP * max(self.length, 1.0)
             x = np.where(snap, self.breakpoints[candidate], x)
-        rule = "left" if side == "left" else "right"
+        rule: Literal["left", "right"] = "left" if side == "left" else "right"
         pieces = np.searchsorted(self.breakpoints, x, side=rule) - 1
         pieces = np.clip(pieces, 0, len(self.coefficients) - 1)
         local = x - self.breakpoints[pieces]
