@@ -25,7 +25,7 @@ from tests.section_scan import axle_train, one_case
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadCase, LoadModel, Scope
 from vehicles.placement import govern
-from vehicles.train import Axle, Train
+from vehicles.train import Axle, Patch, Train
 
 EXACT = 1e-9
 L = 20.0  # [m]
@@ -83,16 +83,29 @@ def test_support_moment_peaks_are_distinct_one_per_span():
 
 def test_ranged_gap_is_optimised_and_reported():
     """Two equal axles with a gap range on M_B: the worst gap puts each axle over its span's
-    extreme ordinate, 2L - 2L/sqrt 3 apart; the effect is 2 P L/(6 sqrt 3)."""
+    extreme ordinate, 2L - 2L/sqrt 3 apart; the effect is 2 P L/(6 sqrt 3). One range is
+    solved exactly (stationary points of each axle group, paired)."""
     P = 100.0
     train = Train("pair", (Axle(P), Axle(P, (2.0, 30.0))))
-    result = govern(SUPPORT_MOMENT, one_case(train), kind="moment", gap_tolerance=1e-6)
-    best = result.min
-    assert best.value == pytest.approx(2 * P * PEAK_ORDINATE, rel=1e-9)
-    # the effect is flat at its optimum: a gap error e changes it by about P e^2 / L, so the gap
-    # is fixed only to about the square root of the value's rounding
-    assert best.gaps[0].value == pytest.approx(2 * L - 2 * L / math.sqrt(3), abs=1e-2)
+    best = govern(SUPPORT_MOMENT, one_case(train), kind="moment").min
+    assert best.value == pytest.approx(2 * P * PEAK_ORDINATE, rel=1e-12)
+    assert best.gaps[0].value == pytest.approx(2 * L - 2 * L / math.sqrt(3), rel=1e-9)
     assert (best.gaps[0].low, best.gaps[0].high) == (2.0, 30.0)
+
+
+def test_several_ranges_beat_every_fixed_choice_on_a_grid():
+    """Two ranged gaps (numeric search): no fixed pair of gaps on a grid does better."""
+    line = continuous_moment([L, 1.2 * L, L], 1.6 * L)
+    train = Train("three", (Axle(60.0), Axle(100.0, (3.0, 25.0)), Axle(40.0, (3.0, 25.0))))
+    found = govern(line, one_case(train), kind="moment", gap_tolerance=1e-5)
+    grid = np.linspace(3.0, 25.0, 12)
+    for sense, placement in (("max", found.max), ("min", found.min)):
+        sign = 1.0 if sense == "max" else -1.0
+        for g1 in grid:
+            for g2 in grid:
+                fixed = axle_train([60.0, 100.0, 40.0], [g1, g2])
+                other = getattr(govern(line, one_case(fixed), kind="moment"), sense)
+                assert sign * placement.value >= sign * other.value - 1e-9 * abs(other.value)
 
 
 def test_range_end_is_kept_when_it_governs():
@@ -186,3 +199,18 @@ def test_values_match_the_effect_at_the_reported_positions():
         direct = float(np.sum(np.array(placement.axle_loads)[inside] * line(positions[inside])))
         assert placement.value == pytest.approx(direct, rel=1e-9, abs=1e-9)
     assert len({round(p.lead_position, 6) for p in result.top_max}) == len(result.top_max)
+
+
+def test_one_range_with_cleared_lane_beats_every_fixed_gap():
+    """The exact single-range search with a lane cleared around the train and a trailing patch
+    (all three kinds of term move with the range) against a grid of fixed gaps."""
+    line = continuous_moment([L, 1.2 * L, L], 1.6 * L)
+    ranged = Train("t", (Axle(250.0), Axle(250.0, (1.6, 12.0)), Patch(30.0, 8.0, 2.0)))
+    case = dict(lane=80.0, lane_clear_of_train=0.8)
+    found = govern(line, one_case(ranged, **case), kind="moment")
+    for sense, placement in (("max", found.max), ("min", found.min)):
+        sign = 1.0 if sense == "max" else -1.0
+        for gap in np.linspace(1.6, 12.0, 27):
+            fixed = Train("t", (Axle(250.0), Axle(250.0, float(gap)), Patch(30.0, 8.0, 2.0)))
+            other = getattr(govern(line, one_case(fixed, **case), kind="moment"), sense)
+            assert sign * placement.value >= sign * other.value - 1e-9 * abs(other.value)

@@ -37,11 +37,13 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 from dataclasses import dataclass
+from functools import cached_property
 
 import numpy as np
 from scipy.interpolate import PPoly
 
 from vehicles.errors import VehicleError
+from vehicles.extremes import Skeleton, skeleton
 from vehicles.loadmodel import RESPONSE_KINDS, SENSES, LoadCase
 from vehicles.piecewise import (
     Pieces,
@@ -190,6 +192,11 @@ class EffectFunction:
         """E as a scipy ``PPoly`` in the lead position [length]; constant beyond its ends."""
         return self.pieces.ppoly()
 
+    @cached_property
+    def skeleton(self) -> Skeleton:
+        """Every piece's end limits and stationary points (computed once, on first use)."""
+        return skeleton(self.pieces)
+
     @property
     def travel_sign(self) -> float:
         """-1 forward (items trail behind the lead), +1 reverse."""
@@ -235,8 +242,35 @@ def effect_function(
     )
 
 
-def _lane_is_cleared(case: LoadCase) -> bool:
+def lane_is_cleared(case: LoadCase) -> bool:
+    """Whether the lane is taken off the train's footprint (then E depends on the sense)."""
     return case.lane > 0 and case.lane_clear_of_train is not None and case.train is not None
+
+
+def resensed(effect: EffectFunction, prepared: PreparedInfluence, sense: str) -> EffectFunction:
+    """The same arrangement's effect function for another sense.
+
+    Without a cleared lane only the constant terms (lane on the adverse area, knife-edge load)
+    depend on the sense; otherwise the function is built again.
+    """
+    if sense == effect.sense:
+        return effect
+    case, kind = effect.case, effect.kind
+    if lane_is_cleared(case):
+        choices = effect.arrangement.choices if effect.arrangement is not None else None
+        return effect_function(prepared, case, kind=kind, sense=sense,
+                               direction=effect.direction, choices=choices)
+    shift = constant_terms(prepared, case, kind, sense) - constant_terms(prepared, case, kind,
+                                                                          effect.sense)
+    coeffs = effect.pieces.coeffs.copy()
+    coeffs[0] += shift
+    other = EffectFunction(Pieces(effect.pieces.breaks, coeffs), case, kind, sense,
+                           effect.direction, effect.arrangement)
+    if "skeleton" in effect.__dict__:
+        # a constant moves no breakpoint or stationary point: reuse the skeleton, shifted
+        sk = effect.skeleton
+        other.__dict__["skeleton"] = Skeleton(sk.positions, sk.values + shift, sk.sides)
+    return other
 
 
 def summed(
@@ -281,7 +315,7 @@ def effect_terms(
     intervals: list[tuple[np.ndarray, np.ndarray, np.ndarray, int]] = [
         (arrangement.patch_starts, arrangement.patch_ends, patch_weights, _AREA)
     ]
-    if _lane_is_cleared(case):
+    if lane_is_cleared(case):
         front, rear = arrangement.extent
         clear = float(case.lane_clear_of_train or 0.0)
         intensity = -case.factor * (1 + case.lane_allowance) * case.lane

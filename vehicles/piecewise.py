@@ -125,7 +125,8 @@ def unit_roots(b: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Real roots in [0, 1] of the polynomials with ascending coefficients ``b`` (D+1, m).
 
     Each column is one polynomial in a normalised variable v. Closed forms for degree 1 and 2,
-    batched companion-matrix eigenvalues above, then two Newton steps on the full polynomial.
+    batched companion-matrix eigenvalues above, polished by two Newton steps on the full
+    polynomial.
     A column that vanishes identically has no roots reported.
 
     Returns:
@@ -163,7 +164,8 @@ def unit_roots(b: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     v = np.concatenate(roots)
     ok = np.isfinite(v) & (v >= -1e-6) & (v <= 1.0 + 1e-6)
     column, v = column[ok], np.clip(v[ok], 0.0, 1.0)
-    v = _polished(b[:, column], v)
+    if degree_max >= 3:  # eigenvalues are less accurate than the closed forms
+        v = _polished(b[:, column], v)
     return column, v
 
 

@@ -6,11 +6,9 @@ the effect function E(lead position) is built exactly (:mod:`vehicles.effect`) a
 is examined: its two end limits and its interior stationary points (:mod:`vehicles.extremes`).
 The train enters from off the structure and leaves completely; no sampling step.
 
-Ranged gaps and lengths are the one numeric part: the largest (smallest) E over the lead
-position is a continuous function of the chosen values, searched over the box of ranges by a
-grid that always includes every range end, then bounded Brent refinements coordinate by
-coordinate until a sweep gains nothing. ``gap_tolerance`` [length] is the Brent bracket width;
-the values used are reported with every placement.
+Ranged gaps and lengths (:mod:`vehicles.gaps`): a single range is solved exactly; several
+ranges by a numeric search whose bracket width is ``gap_tolerance`` [length]. The values used are
+reported with every placement.
 
 Sign conventions are DESIGN.md's (loads down; sagging moment positive); values carry the units of
 the influence function times those of the load model ([kN m], [kip ft], ...).
@@ -30,29 +28,17 @@ Example:
 
 from __future__ import annotations
 
-import itertools
-from collections.abc import Callable, Sequence
+from collections.abc import Sequence
 from dataclasses import dataclass
 
 import numpy as np
 from scipy.interpolate import PPoly
-from scipy.optimize import minimize_scalar
 
-from vehicles.effect import (
-    DIRECTIONS,
-    EffectFunction,
-    PreparedInfluence,
-    check_request,
-    effect_function,
-    prepare,
-)
+from vehicles.effect import DIRECTIONS, EffectFunction, PreparedInfluence, check_request, prepare
 from vehicles.errors import VehicleError
-from vehicles.extremes import Peak, Skeleton, distinct_peaks, global_peak, skeleton
-from vehicles.loadmodel import LoadCase, LoadModel
-from vehicles.train import Choice
-
-GAP_TOLERANCE_FRACTION = 1e-4
-"""Default Brent bracket for a ranged gap or length, as a fraction of the range's width."""
+from vehicles.extremes import Peak, Skeleton, distinct_peaks
+from vehicles.gaps import best_effects
+from vehicles.loadmodel import LoadModel
 
 POSITION_TOLERANCE_FRACTION = 1e-9
 """An axle within this fraction of the path length of the section stands over it."""
@@ -132,8 +118,8 @@ class Governing:
         max, min: the largest and the smallest effect, None when no case applies.
         top_max, top_min: distinct local extremes (separate peaks), largest (smallest) first;
             every applicable case and direction contributes its own peaks.
-        gap_tolerance: the bracket width used for ranged gaps [length] (None: range fraction
-            ``GAP_TOLERANCE_FRACTION``).
+        gap_tolerance: the bracket width used for trains with several ranges [length] (None:
+            ``vehicles.gaps.GAP_TOLERANCE_FRACTION`` of each range); a single range is exact.
     """
 
     kind: str
@@ -185,9 +171,9 @@ def govern(
                 continue
             ways = tuple(directions) if case.train is not None else ("forward",)
             for direction in ways:
-                for sense in senses:
-                    effect = best_effect(prepared, case, kind=kind, sense=sense,
-                                         direction=direction, gap_tolerance=gap_tolerance)
+                effects = best_effects(prepared, case, kind=kind, senses=senses,
+                                       direction=direction, gap_tolerance=gap_tolerance)
+                for sense, effect in effects.items():
                     found[sense].extend(
                         placements(effect, prepared, model.name, section=section, count=top)
                     )
@@ -208,99 +194,8 @@ def _ranked(found: list[Placement], sense: str) -> list[Placement]:
     return sorted(found, key=lambda p: sign * p.value)
 
 
-def best_effect(
-    influence: PPoly | PreparedInfluence,
-    case: LoadCase,
-    *,
-    kind: str,
-    sense: str,
-    direction: str,
-    gap_tolerance: float | None = None,
-) -> EffectFunction:
-    """The effect function at the ranged values that give the most adverse extreme.
-
-    Args:
-        influence: response per unit downward load against chainage [length].
-        case: the load case.
-        kind, sense, direction: as for :func:`vehicles.effect.effect_function`.
-        gap_tolerance: Brent bracket width [length]; default ``GAP_TOLERANCE_FRACTION`` of each
-            range's width.
-    """
-    prepared = prepare(influence)
-
-    def build(choices: Sequence[float] | None) -> EffectFunction:
-        return effect_function(prepared, case, kind=kind, sense=sense, direction=direction,
-                               choices=choices)
-
-    ranges = case.train.ranges if case.train is not None else ()
-    if not ranges:
-        return build(None)
-
-    def adverse(choices: tuple[float, ...]) -> float:
-        # the largest E for "max"; minus the smallest E for "min"
-        return global_peak(_signed_skeleton(build(choices), sense)).value
-
-    # gains below rounding of the effect's magnitude do not move the choice off a range end
-    value_tolerance = skeleton(build(None).pieces).tolerance
-    return build(optimal_choices(adverse, ranges, gap_tolerance, value_tolerance))
-
-
-def optimal_choices(
-    objective: Callable[[tuple[float, ...]], float],
-    ranges: Sequence[Choice],
-    gap_tolerance: float | None = None,
-    value_tolerance: float = 0.0,
-) -> tuple[float, ...]:
-    """The values in the box of ``ranges`` that maximise ``objective``.
-
-    A grid that includes every range end (9 points for one range, 5 a range for two, 3 for
-    more), then bounded Brent searches one coordinate at a time around the best point, repeated
-    while a sweep improves the objective. Every value tried is remembered; the best is returned,
-    the first one tried among those within ``value_tolerance`` of it (range ends come first).
-    """
-    lows = np.array([r.low for r in ranges])
-    highs = np.array([r.high for r in ranges])
-    tolerances = (np.full(len(ranges), gap_tolerance) if gap_tolerance is not None
-                  else GAP_TOLERANCE_FRACTION * np.maximum(highs - lows, 1e-12))
-    seen: dict[tuple[float, ...], float] = {}
-
-    def value(point: Sequence[float]) -> float:
-        key = tuple(float(v) for v in point)
-        if key not in seen:
-            seen[key] = objective(key)
-        return seen[key]
-
-    per_range = {1: 9, 2: 5}.get(len(ranges), 3)
-    axes = [np.unique(np.linspace(lo, hi, per_range)) for lo, hi in zip(lows, highs, strict=True)]
-    inner = [set(axis[1:-1].tolist()) for axis in axes]
-    for point in sorted(itertools.product(*axes),
-                        key=lambda p: sum(v in s for v, s in zip(p, inner, strict=True))):
-        value(point)
-    def best_seen() -> tuple[float, ...]:
-        top = max(seen.values())
-        return next(k for k, v in seen.items() if v >= top - value_tolerance)
-
-    best = best_seen()
-    for _ in range(4):
-        start = seen[best]
-        for i, axis in enumerate(axes):
-            k = int(np.searchsorted(axis, best[i]))
-            bracket = (axis[max(k - 1, 0)], axis[min(k + 1, axis.size - 1)])
-            if bracket[1] - bracket[0] <= tolerances[i]:
-                continue
-            def along(t: float, i: int = i, start: tuple[float, ...] = best) -> float:
-                return -value((*start[:i], float(t), *start[i + 1 :]))
-
-            minimize_scalar(along, bounds=bracket, method="bounded",
-                            options={"xatol": float(tolerances[i])})
-            best = best_seen()
-        if seen[best] <= start + value_tolerance:
-            break
-    return best
-
-
 def _signed_skeleton(effect: EffectFunction, sense: str) -> Skeleton:
-    sk = skeleton(effect.pieces)
+    sk = effect.skeleton
     return sk if sense == "max" else sk.negated()
 
 

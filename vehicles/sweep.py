@@ -27,8 +27,8 @@ import numpy as np
 from scipy.interpolate import PPoly
 
 from vehicles.effect import DIRECTIONS, PreparedInfluence, effect_function, prepare
+from vehicles.gaps import best_effect
 from vehicles.loadmodel import LoadCase
-from vehicles.placement import best_effect
 
 DEFAULT_STEPS = 200
 """Regular steps across the train's passage when no step is given."""
