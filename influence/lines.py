@@ -158,6 +158,15 @@ class InfluenceLine:
                 crossings.append(x)
         return np.unique(np.array(crossings, dtype=float))
 
+    def integral(self, start: float, end: float) -> float:
+        """Exact area under the line between two chainages [ordinate * length] (zero off the
+        path): the effect of a unit uniform load over that stretch."""
+        lo = max(min(start, end), float(self.breakpoints[0]))
+        hi = min(max(start, end), float(self.breakpoints[-1]))
+        if hi <= lo:
+            return 0.0
+        return float(self.ppoly.integrate(lo, hi))
+
     def areas(self) -> tuple[float, float]:
         """(positive area, negative area) under the line [ordinate * length], exact."""
         positive = negative = 0.0

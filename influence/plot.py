@@ -211,7 +211,8 @@ def draw_structure(model: Model, ax: Axes | None = None) -> Axes:
         if node.support.is_support:
             _support_glyph(ax, node.x, node.y, 0.03 * extent, extent * 2.0,
                            node.support.description, ground=True)
-    ax.set_aspect("equal", adjustable="datalim")
+    if max(ys) - min(ys) > 0.05 * extent:  # a frame or truss: true shape; a girder: stretched
+        ax.set_aspect("equal", adjustable="datalim")
     names = labels(model.units)
     ax.set_xlabel(f"x [{names.length}]")
     ax.set_ylabel(f"y [{names.length}]")

@@ -1,5 +1,6 @@
 """Registers every command module with the ``influence`` group."""
 from influence.cli import (
+    envelopes,  # noqa: F401
     lines,  # noqa: F401
     vehicles,  # noqa: F401
 )

@@ -1,0 +1,136 @@
+"""`influence envelope` and `influence report`."""
+
+from __future__ import annotations
+
+import sys
+from collections.abc import Iterator
+from contextlib import contextmanager
+from typing import Any
+
+import click
+
+from influence.cli import main
+from influence.design import DesignBasis, SectionSettings, read_design
+from influence.envelope import ENVELOPE_RESPONSES, Envelope, envelope
+from influence.envelope_output import deflection_table, envelope_document, envelope_table
+from influence.errors import ModelError
+from influence.lines import analyse_model
+from influence.model import Model
+from influence.output import render_csv, render_json, render_table
+from influence.sections import envelope_sections
+from vehicles.catalog import load_model
+from vehicles.loadmodel import LoadModel
+
+
+def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis) -> list[LoadModel]:
+    """Load models named on the command line, else in the model file, in the model's units."""
+    chosen = names or basis.live.vehicles
+    if not chosen:
+        raise ModelError("no vehicles given", source=model.source, item="live load",
+                         fix="give --vehicle NAME or FILE, or live_load.vehicles in the file")
+    return [load_model(name, units=model.units) for name in chosen]
+
+
+@contextmanager
+def progress_bar(total: int, label: str, quiet: bool) -> Iterator[click.termui.ProgressBar]:  # type: ignore[type-arg]
+    """click's progress bar on a terminal; silent when piped or with --quiet."""
+    hidden = quiet or not sys.stderr.isatty()
+    sink: Any = _Null() if hidden else None
+    with click.progressbar(length=total, label=label, file=sink, show_eta=True) as bar:
+        yield bar
+
+
+class _Null:
+    def write(self, text: str) -> int:
+        return len(text)
+
+    def flush(self) -> None:
+        return None
+
+    def isatty(self) -> bool:
+        return False
+
+
+def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
+                 step: float | None, per_span: int | None, quiet: bool) -> tuple[Model, Envelope]:
+    model, basis = read_design(model_file)
+    models = resolve_vehicles(vehicles, model, basis)
+    analysis = analyse_model(model)
+    settings = basis.sections
+    if step is not None or per_span is not None:
+        settings = SectionSettings(per_span=per_span or settings.per_span, step=step,
+                                   extra=settings.extra)
+    sections = envelope_sections(model, analysis.path, per_span=settings.per_span,
+                                 step=settings.step, extra=settings.extra)
+    kinds = responses or ENVELOPE_RESPONSES
+    from influence.envelope import section_responses
+
+    total = len(section_responses(sections, kinds))
+    with progress_bar(total, "envelopes", quiet) as bar:
+        result = envelope(analysis, models, basis, kinds=kinds, sections=sections,
+                          progress=bar.update)
+    return model, result
+
+
+@main.command("envelope")
+@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.option("--vehicle", "vehicles", multiple=True,
+              help="Library load model name or vehicle file; repeat for several.")
+@click.option("--responses", "responses", multiple=True,
+              type=click.Choice(ENVELOPE_RESPONSES), help="Responses to envelope (repeatable).")
+@click.option("--step", type=float, help="Section spacing along each span [length].")
+@click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
+@click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
+              show_default=True)
+@click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
+              help="Draw the envelopes to a PNG, SVG or PDF file.")
+@click.option("--quiet", is_flag=True, help="No progress bar.")
+def envelope_command(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
+                     step: float | None, per_span: int | None, fmt: str, plot_file: str | None,
+                     quiet: bool) -> None:
+    """Envelopes of the largest and smallest live-load effects at every section of MODEL_FILE,
+    with the dead loads and factored combinations of the file."""
+    if step is not None and per_span is not None:
+        raise click.UsageError("give --step or --per-span, not both")
+    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet)
+    kinds = responses or ENVELOPE_RESPONSES
+    if fmt == "json":
+        click.echo(render_json(envelope_document(result, model.title)))
+    else:
+        render = render_csv if fmt == "csv" else render_table
+        blocks = [render(envelope_table(result, kind, model.title)) for kind in kinds
+                  if result.of(kind)]
+        if result.deflection_checks:
+            blocks.append(render(deflection_table(result, model.title)))
+        click.echo("\n\n".join(blocks))
+    if plot_file:
+        from influence.plot import save
+        from influence.report import envelope_figure
+
+        save(envelope_figure(result, kinds, model.title), plot_file)
+
+
+@main.command("report")
+@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.option("--vehicle", "vehicles", multiple=True,
+              help="Library load model name or vehicle file; repeat for several.")
+@click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
+              help="Folder for report.pdf, figures/ and tables/.")
+@click.option("--responses", "responses", multiple=True,
+              type=click.Choice(ENVELOPE_RESPONSES), help="Responses to envelope (repeatable).")
+@click.option("--step", type=float, help="Section spacing along each span [length].")
+@click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
+@click.option("--quiet", is_flag=True, help="No progress bar.")
+def report_command(model_file: str, vehicles: tuple[str, ...], out_dir: str,
+                   responses: tuple[str, ...], step: float | None, per_span: int | None,
+                   quiet: bool) -> None:
+    """Write the calculation package for MODEL_FILE: a PDF report, its figures as PNG and the
+    envelope and combination tables as CSV."""
+    if step is not None and per_span is not None:
+        raise click.UsageError("give --step or --per-span, not both")
+    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet)
+    from influence.report import write_report
+
+    files = write_report(analyse_model(model), result, out_dir, responses or ENVELOPE_RESPONSES)
+    click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "
+               f"{len(files.tables)} tables in {out_dir}")

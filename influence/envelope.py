@@ -1,0 +1,233 @@
+"""Envelopes: the largest and smallest live-load effect at every section, with the dead-load
+effects and the factored combinations, each value traceable to its governing placement.
+
+For each section and response the influence line is built exactly and handed to the exact
+placement search of :mod:`vehicles.placement`; dead loads are integrated exactly on the same
+line (:mod:`influence.deadload`). Live-load values of one lane are multiplied by the live-load
+scale (distribution factor x multiple presence factor) of the design basis.
+
+A combination factors each load name with its maximum and minimum factors and the live load
+with its factor: largest = sum of max(f_max D, f_min D) + f_LL max(LL_max, 0); smallest the same
+with min (the usual rule for permanent loads that may help or hurt).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable, Sequence
+from dataclasses import dataclass, replace
+
+import numpy as np
+from scipy.optimize import minimize_scalar
+
+from influence.deadload import dead_load_effects
+from influence.design import LIVE_LOAD, Combination, DesignBasis
+from influence.lines import Analysis, InfluenceLine
+from influence.responses import Response
+from influence.sections import Section, Span, envelope_sections, spans
+from vehicles.loadmodel import LoadModel
+from vehicles.placement import Governing, Placement, govern
+
+ENVELOPE_RESPONSES = ("moment", "shear", "reaction", "deflection")
+DEFLECTION_REFINEMENT = 1e-4
+"""Bracket [fraction of the span] of the search for the section of largest live deflection
+between envelope sections; the deflection at each trial section is exact."""
+
+Progress = Callable[[int], None]
+
+
+@dataclass(frozen=True)
+class EnvelopeEntry:
+    """One response at one section.
+
+    Attributes:
+        section: where.
+        response: what.
+        live: the governing placements of the load models for one lane (values include each
+            case's factors and dynamic allowance, not the live-load scale).
+        live_scale: distribution x multiple presence factor applied to the live values [-].
+        dead: effects of the dead loads by load name.
+    """
+
+    section: Section
+    response: Response
+    live: Governing
+    live_scale: float
+    dead: tuple[tuple[str, float], ...]
+
+    @property
+    def kind(self) -> str:
+        return self.response.kind
+
+    @property
+    def live_max(self) -> float | None:
+        return None if self.live.max is None else self.live.max.value * self.live_scale
+
+    @property
+    def live_min(self) -> float | None:
+        return None if self.live.min is None else self.live.min.value * self.live_scale
+
+    def dead_effect(self, load: str) -> float:
+        return dict(self.dead).get(load, 0.0)
+
+    def combined(self, combination: Combination) -> tuple[float, float]:
+        """(largest, smallest) factored effect of a combination."""
+        high = low = 0.0
+        for load, effect in self.dead:
+            f_max, f_min = combination.factor(load)
+            high += max(f_max * effect, f_min * effect)
+            low += min(f_max * effect, f_min * effect)
+        f_live, _ = combination.factor(LIVE_LOAD)
+        high += f_live * max(self.live_max or 0.0, 0.0)
+        low += f_live * min(self.live_min or 0.0, 0.0)
+        return high, low
+
+
+@dataclass(frozen=True)
+class DeflectionCheck:
+    """The largest live-load deflection of a span against span / N."""
+
+    span: Span
+    deflection: float  # [length], downward positive, live scale included
+    at: float  # chainage of the section [length]
+    placement: Placement | None
+    limit: float  # [length]
+
+    @property
+    def ratio(self) -> float:
+        return self.deflection / self.limit if self.limit else float("nan")
+
+    @property
+    def passes(self) -> bool:
+        return self.deflection <= self.limit
+
+
+@dataclass(frozen=True)
+class Envelope:
+    """Every envelope entry of a run, and the deflection check."""
+
+    entries: tuple[EnvelopeEntry, ...]
+    models: tuple[LoadModel, ...]
+    basis: DesignBasis
+    units: str
+    deflection_checks: tuple[DeflectionCheck, ...] = ()
+
+    def of(self, kind: str) -> list[EnvelopeEntry]:
+        return [e for e in self.entries if e.kind == kind]
+
+
+def section_responses(sections: Sequence[Section], kinds: Sequence[str]) -> list[
+        tuple[Section, Response]]:
+    """The (section, response) pairs of an envelope: reactions only where supports stand."""
+    pairs = []
+    for kind in kinds:
+        for section in sections:
+            if kind == "reaction":
+                if section.support and section.side == "right":
+                    pairs.append((replace(section, label=section.support),
+                                  Response("reaction", section.support)))
+                continue
+            if kind in ("moment", "deflection", "rotation"):
+                if section.side == "left":
+                    continue  # no applied moments: moments and displacements do not jump
+                section = replace(section, label=section.label.removesuffix(" right"))
+            pairs.append((section, Response(kind, section.location, section.side)))
+    return pairs
+
+
+def envelope(
+    analysis: Analysis,
+    models: Sequence[LoadModel],
+    basis: DesignBasis,
+    *,
+    kinds: Sequence[str] = ENVELOPE_RESPONSES,
+    sections: Sequence[Section] | None = None,
+    progress: Progress | None = None,
+) -> Envelope:
+    """Envelopes of the responses at the sections, for the load models and the dead loads.
+
+    Args:
+        analysis: the factorised model.
+        models: load models in the model's units.
+        basis: dead loads, combinations, live-load settings.
+        kinds: responses to envelope.
+        sections: where; default from the basis (tenth points, supports, hinges, extras).
+        progress: called with the number of entries finished since the last call.
+    """
+    if sections is None:
+        settings = basis.sections
+        sections = envelope_sections(analysis.model, analysis.path, per_span=settings.per_span,
+                                     step=settings.step, extra=settings.extra)
+    pairs = section_responses(sections, kinds)
+    lines = analysis.lines([response for _, response in pairs])
+    entries = []
+    for (section, _), line in zip(pairs, lines, strict=True):
+        entries.append(_entry(analysis, section, line, models, basis))
+        if progress:
+            progress(1)
+    checks: tuple[DeflectionCheck, ...] = ()
+    if basis.live.deflection_limit and "deflection" in kinds:
+        checks = tuple(deflection_checks(analysis, models, basis, entries))
+    return Envelope(tuple(entries), tuple(models), basis, analysis.model.units, checks)
+
+
+def _entry(analysis: Analysis, section: Section, line: InfluenceLine,
+           models: Sequence[LoadModel], basis: DesignBasis) -> EnvelopeEntry:
+    live = govern(line.ppoly, models, kind=line.response.kind,
+                  interior=line.interior_support, section=line.section_chainage)
+    dead = dead_load_effects(line, basis.loads, analysis.path)
+    return EnvelopeEntry(section, line.response, live, basis.live.scale,
+                         tuple(dead.items()))
+
+
+def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: DesignBasis,
+                      entries: Sequence[EnvelopeEntry]) -> list[DeflectionCheck]:
+    """Largest live deflection of each span against span / N, refined between the envelope
+    sections around the largest one (a bounded search; exact deflection at every trial)."""
+    assert basis.live.deflection_limit
+    found = []
+    deflections = [e for e in entries if e.kind == "deflection" and e.section.chainage is not None]
+    for span in spans(analysis.model, analysis.path):
+        inside = [e for e in deflections if e.section.span == span.number]
+        if not inside:
+            continue
+        best = max(inside, key=lambda e: e.live_max or 0.0)
+        chainages = sorted(e.section.chainage for e in inside if e.section.chainage is not None)
+        at = best.section.chainage
+        assert at is not None
+        index = chainages.index(at)
+        lo = chainages[max(index - 1, 0)]
+        hi = chainages[min(index + 1, len(chainages) - 1)]
+
+        def negative_deflection(chainage: float) -> float:
+            line = analysis.line(Response("deflection", repr(float(chainage))))
+            result = govern(line.ppoly, models, kind="deflection")
+            return -(result.max.value if result.max else 0.0)
+
+        value, placement = (best.live_max or 0.0) / basis.live.scale, best.live.max
+        if hi > lo:
+            search = minimize_scalar(negative_deflection, bounds=(lo, hi), method="bounded",
+                                     options={"xatol": DEFLECTION_REFINEMENT * span.length})
+            if -search.fun > value:
+                at, value = float(search.x), float(-search.fun)
+                line = analysis.line(Response("deflection", repr(at)))
+                placement = govern(line.ppoly, models, kind="deflection").max
+        limit = span.length / basis.live.deflection_limit
+        found.append(DeflectionCheck(span, value * basis.live.scale, at, placement, limit))
+    return found
+
+
+def governing_label(placement: Placement | None) -> str:
+    """'model: case, direction' for tables."""
+    if placement is None:
+        return "-"
+    return f"{placement.model}: {placement.case} ({placement.direction})"
+
+
+def as_arrays(entries: Sequence[EnvelopeEntry]) -> dict[str, np.ndarray]:
+    """Chainage, live max and min of entries on the path, for plots."""
+    on_path = [e for e in entries if e.section.chainage is not None]
+    return {
+        "chainage": np.array([e.section.chainage for e in on_path], dtype=float),
+        "max": np.array([e.live_max if e.live_max is not None else np.nan for e in on_path]),
+        "min": np.array([e.live_min if e.live_min is not None else np.nan for e in on_path]),
+    }

@@ -1,0 +1,162 @@
+"""Envelope tables: text, CSV (units in every column name) and JSON, with the usual header."""
+
+from __future__ import annotations
+
+from typing import Any
+
+from influence.conventions import effect_unit, header_lines
+from influence.envelope import Envelope, EnvelopeEntry, governing_label
+from influence.output import Table
+from vehicles.placement import Placement
+from vehicles.units import labels
+
+
+def _number(value: float | None) -> float | str:
+    return "-" if value is None else float(value)
+
+
+def envelope_header(envelope: Envelope, title: str) -> list[str]:
+    live = envelope.basis.live
+    lines = header_lines(title, envelope.units)
+    lines.append("Load models: " + "; ".join(
+        f"{m.name} ({m.standard}{', ' + m.clause if m.clause else ''})" if m.standard else m.name
+        for m in envelope.models))
+    lines.append(f"Live load per girder line = one lane's effect x distribution "
+                 f"{live.distribution:g} x multiple presence {live.multiple_presence:g}; "
+                 "dynamic load allowance as each load model's cases give it.")
+    return lines
+
+
+ROUND_OFF = 1e-9
+"""Values smaller than this fraction [-] of their column's largest are round-off, shown as 0."""
+
+
+def tidy_columns(rows: list[tuple[Any, ...]]) -> list[tuple[Any, ...]]:
+    """Zero the round-off in numeric columns (a moment line that is exactly zero at an end
+    support still carries 1e-13 from the solve)."""
+    if not rows:
+        return rows
+    columns = list(zip(*rows, strict=True))
+    cleaned = []
+    for values in columns:
+        numbers = [abs(v) for v in values if isinstance(v, float)]
+        scale = max(numbers, default=0.0)
+        cleaned.append([0.0 if isinstance(v, float) and abs(v) < ROUND_OFF * scale else v
+                        for v in values])
+    return [tuple(row) for row in zip(*cleaned, strict=True)]
+
+
+def envelope_table(envelope: Envelope, kind: str, title: str, compact: bool = False) -> Table:
+    """One response's envelope: section, live max/min with governing placements, dead loads and
+    each combination's largest and smallest value (``compact``: without lead positions and with
+    short governing labels, for printed pages)."""
+    names = labels(envelope.units)
+    unit = effect_unit(kind, envelope.units)
+    loads = envelope.basis.load_names
+    combinations = envelope.basis.combinations
+    if compact:
+        columns = ["section", f"at [{names.length}]", f"LL max [{unit}]", "governs",
+                   f"LL min [{unit}]", "governs"]
+    else:
+        columns = ["section", f"chainage [{names.length}]", f"live max [{unit}]",
+                   "governing max", f"lead at max [{names.length}]", f"live min [{unit}]",
+                   "governing min", f"lead at min [{names.length}]"]
+    columns += [f"{load} [{unit}]" for load in loads]
+    for combination in combinations:
+        columns += [f"{combination.name} max [{unit}]", f"{combination.name} min [{unit}]"]
+    rows = []
+    for entry in envelope.of(kind):
+        at = "-" if entry.section.chainage is None else entry.section.chainage
+        row: list[Any]
+        if compact:
+            row = [entry.section.label, at, _number(entry.live_max), _short(entry.live.max),
+                   _number(entry.live_min), _short(entry.live.min)]
+        else:
+            row = [entry.section.label, at, _number(entry.live_max),
+                   governing_label(entry.live.max), _lead(entry.live.max),
+                   _number(entry.live_min), governing_label(entry.live.min),
+                   _lead(entry.live.min)]
+        row += [entry.dead_effect(load) for load in loads]
+        for combination in combinations:
+            row += list(entry.combined(combination))
+        rows.append(tuple(row))
+    header = envelope_header(envelope, f"{title}: envelope of {kind}")
+    return Table(header, tuple(columns), tidy_columns(rows))
+
+
+def _short(placement: Placement | None) -> str:
+    if placement is None:
+        return "-"
+    way = {"forward": "fwd", "reverse": "rev"}.get(placement.direction, placement.direction)
+    return f"{placement.case} {way}"
+
+
+def _lead(placement: Placement | None) -> float | str:
+    return "-" if placement is None else placement.lead_position
+
+
+def placement_document(placement: Placement | None, scale: float) -> dict[str, Any] | None:
+    if placement is None:
+        return None
+    return {
+        "value": placement.value * scale,
+        "value_one_lane": placement.value,
+        "model": placement.model,
+        "case": placement.case,
+        "direction": placement.direction,
+        "lead_position": placement.lead_position,
+        "axle_positions": placement.axle_positions,
+        "axle_loads": placement.axle_loads,
+        "gaps": [{"item": g.item, "attribute": g.attribute, "range": [g.low, g.high],
+                  "value": g.value} for g in placement.gaps],
+        "lane_segments": placement.lane_segments,
+        "lane_intensity": placement.lane_intensity,
+        "knife_edge_position": placement.knife_edge_position,
+        "knife_edge_load": placement.knife_edge_load,
+    }
+
+
+def entry_document(entry: EnvelopeEntry, envelope: Envelope) -> dict[str, Any]:
+    return {
+        "section": entry.section.label,
+        "location": entry.section.location,
+        "side": entry.section.side,
+        "chainage": entry.section.chainage,
+        "response": entry.kind,
+        "max": placement_document(entry.live.max, entry.live_scale),
+        "min": placement_document(entry.live.min, entry.live_scale),
+        "dead": dict(entry.dead),
+        "combinations": {c.name: dict(zip(("max", "min"), entry.combined(c), strict=True))
+                         for c in envelope.basis.combinations},
+    }
+
+
+def envelope_document(envelope: Envelope, title: str) -> dict[str, Any]:
+    names = labels(envelope.units)
+    return {
+        "title": title,
+        "units": {"force": names.force, "length": names.length, "moment": names.moment},
+        "conventions": envelope_header(envelope, title)[1:],
+        "load_models": [{"name": m.name, "standard": m.standard, "clause": m.clause}
+                        for m in envelope.models],
+        "live_scale": envelope.basis.live.scale,
+        "entries": [entry_document(e, envelope) for e in envelope.entries],
+        "deflection_checks": [
+            {"span": c.span.number, "length": c.span.length, "deflection": c.deflection,
+             "at": c.at, "limit": c.limit, "ratio": c.ratio, "passes": c.passes,
+             "governing": governing_label(c.placement)}
+            for c in envelope.deflection_checks
+        ],
+    }
+
+
+def deflection_table(envelope: Envelope, title: str) -> Table:
+    names = labels(envelope.units)
+    limit = envelope.basis.live.deflection_limit
+    header = envelope_header(envelope, f"{title}: live-load deflection check, limit span/{limit:g}")
+    rows = [(c.span.number, c.span.length, c.at, c.deflection, c.limit, c.ratio,
+             "pass" if c.passes else "FAIL", governing_label(c.placement))
+            for c in envelope.deflection_checks]
+    return Table(header, ("span", f"length [{names.length}]", f"at [{names.length}]",
+                          f"deflection [{names.length}]", f"limit [{names.length}]",
+                          "ratio [-]", "check", "governing"), rows)
