@@ -110,6 +110,7 @@ class Envelope:
     basis: DesignBasis
     units: str
     deflection_checks: tuple[DeflectionCheck, ...] = ()
+    notes: tuple[str, ...] = ()
 
     def of(self, kind: str) -> list[EnvelopeEntry]:
         return [e for e in self.entries if e.kind == kind]
@@ -142,6 +143,7 @@ def envelope(
     kinds: Sequence[str] = ENVELOPE_RESPONSES,
     sections: Sequence[Section] | None = None,
     progress: Progress | None = None,
+    notes: Sequence[str] = (),
 ) -> Envelope:
     """Envelopes of the responses at the sections, for the load models and the dead loads.
 
@@ -152,6 +154,7 @@ def envelope(
         kinds: responses to envelope.
         sections: where; default from the basis (tenth points, supports, hinges, extras).
         progress: called with the number of entries finished since the last call.
+        notes: remarks carried to the outputs (such as unit conversions of load models).
     """
     if sections is None:
         settings = basis.sections
@@ -167,7 +170,8 @@ def envelope(
     checks: tuple[DeflectionCheck, ...] = ()
     if basis.live.deflection_limit and "deflection" in kinds:
         checks = tuple(deflection_checks(analysis, models, basis, entries))
-    return Envelope(tuple(entries), tuple(models), basis, analysis.model.units, checks)
+    return Envelope(tuple(entries), tuple(models), basis, analysis.model.units, checks,
+                    tuple(notes))
 
 
 def _entry(analysis: Analysis, section: Section, line: InfluenceLine,

@@ -24,6 +24,7 @@ def envelope_header(envelope: Envelope, title: str) -> list[str]:
     lines.append(f"Live load per girder line = one lane's effect x distribution "
                  f"{live.distribution:g} x multiple presence {live.multiple_presence:g}; "
                  "dynamic load allowance as each load model's cases give it.")
+    lines.extend(envelope.notes)
     return lines
 
 

@@ -97,7 +97,7 @@ def _title_page(analysis: Analysis, envelope: Envelope) -> Any:
         "",
         "Sign conventions: " + SIGN_CONVENTIONS,
         "",
-        *envelope_header(envelope, model.title)[-2:],
+        *envelope_header(envelope, model.title)[4:],
         "",
         "Model:",
         *summary.splitlines()[4:],

@@ -15,20 +15,22 @@ from influence.envelope import ENVELOPE_RESPONSES, Envelope, envelope
 from influence.envelope_output import deflection_table, envelope_document, envelope_table
 from influence.errors import ModelError
 from influence.lines import analyse_model
+from influence.loading import vehicles_for
 from influence.model import Model
 from influence.output import render_csv, render_json, render_table
 from influence.sections import envelope_sections
-from vehicles.catalog import load_model
 from vehicles.loadmodel import LoadModel
 
 
-def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis) -> list[LoadModel]:
-    """Load models named on the command line, else in the model file, in the model's units."""
+def resolve_vehicles(names: tuple[str, ...], model: Model,
+                     basis: DesignBasis) -> tuple[list[LoadModel], list[str]]:
+    """Load models named on the command line, else in the model file, in the model's units,
+    with notes on those converted."""
     chosen = names or basis.live.vehicles
     if not chosen:
         raise ModelError("no vehicles given", source=model.source, item="live load",
                          fix="give --vehicle NAME or FILE, or live_load.vehicles in the file")
-    return [load_model(name, units=model.units) for name in chosen]
+    return vehicles_for(chosen, model.units)
 
 
 @contextmanager
@@ -54,7 +56,7 @@ class _Null:
 def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
                  step: float | None, per_span: int | None, quiet: bool) -> tuple[Model, Envelope]:
     model, basis = read_design(model_file)
-    models = resolve_vehicles(vehicles, model, basis)
+    models, notes = resolve_vehicles(vehicles, model, basis)
     analysis = analyse_model(model)
     settings = basis.sections
     if step is not None or per_span is not None:
@@ -68,7 +70,7 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
     total = len(section_responses(sections, kinds))
     with progress_bar(total, "envelopes", quiet) as bar:
         result = envelope(analysis, models, basis, kinds=kinds, sections=sections,
-                          progress=bar.update)
+                          progress=bar.update, notes=notes)
     return model, result
 
 

@@ -1,0 +1,133 @@
+"""Governing-position and sweep tables and documents, with the usual header."""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from typing import Any
+
+from influence.conventions import effect_unit, header_lines
+from influence.governing import GoverningResult
+from influence.output import Table
+from vehicles.concurrent import Concurrent
+from vehicles.placement import Placement
+from vehicles.sweep import Sweep
+from vehicles.units import labels
+
+
+def _concurrent_document(result: GoverningResult,
+                         values: Sequence[Concurrent]) -> list[dict[str, Any]]:
+    return [{"response": other.response.kind, "location": other.response.location,
+             "side": other.response.side, "value": c.value, "left": c.left, "right": c.right,
+             "ambiguous": c.ambiguous}
+            for other, c in zip(result.others, values, strict=True)]
+
+
+def placement_document(placement: Placement, result: GoverningResult,
+                       values: Sequence[Concurrent]) -> dict[str, Any]:
+    return {
+        "value": placement.value,
+        "vehicle": placement.model,
+        "case": placement.case,
+        "direction": placement.direction,
+        "lead_position": placement.lead_position,
+        "axle_positions": placement.axle_positions,
+        "axle_loads": placement.axle_loads,
+        "axle_over_section": placement.section_axle,
+        "gaps": [{"item": g.item, "attribute": g.attribute, "range": [g.low, g.high],
+                  "value": g.value} for g in placement.gaps],
+        "patch_segments": placement.patch_segments,
+        "lane_segments": placement.lane_segments,
+        "lane_intensity": placement.lane_intensity,
+        "knife_edge_position": placement.knife_edge_position,
+        "knife_edge_load": placement.knife_edge_load,
+        "limit_side": placement.limit_side,
+        "concurrent": _concurrent_document(result, values),
+    }
+
+
+def governing_document(result: GoverningResult, title: str,
+                       notes: Sequence[str] = ()) -> dict[str, Any]:
+    line = result.line
+    names = labels(line.units)
+    g = result.governing
+    return {
+        "title": title,
+        "response": line.response.kind,
+        "location": line.response.location,
+        "side": line.response.side,
+        "section_chainage": line.section_chainage,
+        "units": {"force": names.force, "length": names.length, "moment": names.moment,
+                  "effect": effect_unit(line.response.kind, line.units,
+                                        line.response.component)},
+        "notes": list(notes),
+        "conventions": header_lines(title, line.units)[1:],
+        "gap_tolerance": g.gap_tolerance,
+        "max": None if g.max is None else placement_document(g.max, result,
+                                                              result.concurrent_max),
+        "min": None if g.min is None else placement_document(g.min, result,
+                                                              result.concurrent_min),
+        "top": {
+            "max": [placement_document(p, result, c)
+                    for p, c in zip(g.top_max, result.concurrent_top_max, strict=True)],
+            "min": [placement_document(p, result, c)
+                    for p, c in zip(g.top_min, result.concurrent_top_min, strict=True)],
+        },
+    }
+
+
+def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = ()) -> Table:
+    line = result.line
+    names = labels(line.units)
+    unit = effect_unit(line.response.kind, line.units, line.response.component)
+    header = header_lines(f"{title}: governing positions for {line.response.label}",
+                          line.units) + list(notes)
+    header.append("Lead position: chainage of the train's front axle (reference point); "
+                  "axle chainages front to rear as the train is described.")
+    columns = ["sense", "rank", f"effect [{unit}]", "vehicle", "case", "direction",
+               f"lead [{names.length}]", f"axles [{names.length}]", f"gaps used [{names.length}]",
+               "axle over section", f"lane loaded [{names.length}]"]
+    columns += [f"concurrent {o.response.label} [{effect_unit(o.response.kind, line.units)}]"
+                for o in result.others]
+    rows: list[tuple[Any, ...]] = []
+    g = result.governing
+    for sense, placements, concurrents in (("max", g.top_max, result.concurrent_top_max),
+                                           ("min", g.top_min, result.concurrent_top_min)):
+        for rank, (p, c) in enumerate(zip(placements, concurrents, strict=True), start=1):
+            rows.append((
+                sense, rank, p.value, p.model, p.case, p.direction, p.lead_position,
+                " ".join(f"{x:.4g}" for x in p.axle_positions) or "-",
+                " ".join(f"{gap.value:.4g}" for gap in p.gaps) or "-",
+                "-" if p.section_axle is None else f"axle {p.section_axle + 1}",
+                " ".join(f"{a:.4g}-{b:.4g}" for a, b in p.lane_segments) or "-",
+                *(value.value for value in c),
+            ))
+    return Table(header, tuple(columns), rows)
+
+
+def sweep_table(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
+                notes: Sequence[str] = ()) -> Table:
+    names = labels(units)
+    unit = effect_unit(kind, units)
+    header = header_lines(title, units) + list(notes)
+    header.append("Lead position: chainage of the train's reference point; where the effect "
+                  "jumps a position is listed twice (left, then right limit).")
+    rows = []
+    for s in sweeps:
+        gaps = " ".join(f"{v:.4g}" for v in s.choices) or "-"
+        for x, v in zip(s.lead_positions, s.values, strict=True):
+            rows.append((s.case, s.direction, s.sense, gaps, float(x), float(v)))
+    return Table(header, ("case", "direction", "lane for", f"gaps used [{names.length}]",
+                          f"lead [{names.length}]", f"effect [{unit}]"), rows)
+
+
+def sweep_document(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
+                   notes: Sequence[str] = ()) -> dict[str, Any]:
+    names = labels(units)
+    return {
+        "title": title, "response": kind, "notes": list(notes),
+        "units": {"force": names.force, "length": names.length,
+                  "effect": effect_unit(kind, units)},
+        "sweeps": [{"case": s.case, "direction": s.direction, "sense": s.sense,
+                    "gaps": s.choices, "lead_positions": s.lead_positions, "values": s.values}
+                   for s in sweeps],
+    }
