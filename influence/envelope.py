@@ -28,6 +28,9 @@ from vehicles.loadmodel import LoadModel
 from vehicles.placement import Governing, Placement, govern
 
 ENVELOPE_RESPONSES = ("moment", "shear", "reaction", "deflection")
+"""Responses enveloped by default."""
+ENVELOPE_CHOICES = (*ENVELOPE_RESPONSES, "axial")
+"""Responses an envelope can take (axial force for truss bars and frame members)."""
 DEFLECTION_REFINEMENT = 1e-4
 """Bracket [fraction of the span] of the search for the section of largest live deflection
 between envelope sections; the deflection at each trial section is exact."""

@@ -11,7 +11,7 @@ import click
 
 from influence.cli import main
 from influence.design import DesignBasis, SectionSettings, read_design
-from influence.envelope import ENVELOPE_RESPONSES, Envelope, envelope
+from influence.envelope import ENVELOPE_CHOICES, ENVELOPE_RESPONSES, Envelope, envelope
 from influence.envelope_output import deflection_table, envelope_document, envelope_table
 from influence.errors import ModelError
 from influence.lines import analyse_model
@@ -79,7 +79,7 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
 @click.option("--vehicle", "vehicles", multiple=True,
               help="Library load model name or vehicle file; repeat for several.")
 @click.option("--responses", "responses", multiple=True,
-              type=click.Choice(ENVELOPE_RESPONSES), help="Responses to envelope (repeatable).")
+              type=click.Choice(ENVELOPE_CHOICES), help="Responses to envelope (repeatable).")
 @click.option("--step", type=float, help="Section spacing along each span [length].")
 @click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
@@ -119,7 +119,7 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], responses: tupl
 @click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
               help="Folder for report.pdf, figures/ and tables/.")
 @click.option("--responses", "responses", multiple=True,
-              type=click.Choice(ENVELOPE_RESPONSES), help="Responses to envelope (repeatable).")
+              type=click.Choice(ENVELOPE_CHOICES), help="Responses to envelope (repeatable).")
 @click.option("--step", type=float, help="Section spacing along each span [length].")
 @click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
 @click.option("--quiet", is_flag=True, help="No progress bar.")
