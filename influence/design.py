@@ -36,14 +36,13 @@ allowance, times the distribution and multiple presence factors).
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
 from influence.errors import ModelError
 from influence.model import Model
-from influence.modelfile import model_from_document, read_toml
+from influence.modelfile import check_keys, model_from_document, read_number, read_toml
 
 LIVE_LOAD = "LL"
 """The name combinations use for the live load."""
@@ -188,22 +187,12 @@ def _table(value: Any, item: str, allowed: set[str], source: str) -> dict[str, A
     if not isinstance(value, dict):
         raise ModelError(f"{item} must be a table", source=source, item=item,
                          fix=f"write it as [{item}]")
-    for key in value:
-        if key not in allowed:
-            raise ModelError(f"unknown key {key!r}", source=source, item=item,
-                             fix="allowed keys: " + ", ".join(sorted(allowed)))
+    check_keys(value, allowed, item, source)
     return value
 
 
-def _number(value: Any, item: str, source: str) -> float:
-    if isinstance(value, bool) or not isinstance(value, int | float) or not math.isfinite(value):
-        raise ModelError(f"expected a number, got {value!r}", source=source, item=item,
-                         fix="write a plain number")
-    return float(value)
-
-
 def _positive(value: Any, item: str, source: str) -> float:
-    number = _number(value, item, source)
+    number = read_number(value, item, source)
     if number <= 0:
         raise ModelError(f"{number:g} is not positive", source=source, item=item,
                          fix="give a positive number")
@@ -235,15 +224,15 @@ def _dead_load(entry: dict[str, Any], number: int, model: Model, source: str) ->
                 raise ModelError(f"{key!r} does not apply to a point load", source=source,
                                  item=item, fix="use at = chainage")
         return DeadLoad(name, load, point=_positive(entry["point"], item, source),
-                        at=_number(entry["at"], item, source))
+                        at=read_number(entry["at"], item, source))
     members = tuple(str(m) for m in entry.get("members", []))
     for member in members:
         if member not in path_members:
             raise ModelError(f"member {member!r} is not on the path", source=source, item=item,
                              fix="dead loads act on path members: " + ", ".join(
                                  leg.member for leg in model.path))
-    start = _number(entry["from"], item, source) if "from" in entry else None
-    end = _number(entry["to"], item, source) if "to" in entry else None
+    start = read_number(entry["from"], item, source) if "from" in entry else None
+    end = read_number(entry["to"], item, source) if "to" in entry else None
     if start is not None and end is not None and end <= start:
         raise ModelError(f"from {start:g} to {end:g} is empty", source=source, item=item,
                          fix="give from < to")
@@ -266,9 +255,9 @@ def _combination(entry: dict[str, Any], number: int, source: str) -> Combination
             if len(value) != 2:
                 raise ModelError(f"factor on {load} is {value!r}", source=source, item=item,
                                  fix="give one factor, or [max, min]")
-            high, low = (_number(v, f"{item}.{load}", source) for v in value)
+            high, low = (read_number(v, f"{item}.{load}", source) for v in value)
         else:
-            high = low = _number(value, f"{item}.{load}", source)
+            high = low = read_number(value, f"{item}.{load}", source)
         if high < 0 or low < 0:
             raise ModelError(f"negative factor on {load}", source=source, item=item,
                              fix="give factors of zero or more")

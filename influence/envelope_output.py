@@ -6,6 +6,7 @@ from typing import Any
 
 from influence.conventions import effect_unit, header_lines
 from influence.envelope import Envelope, EnvelopeEntry, governing_label
+from influence.governing_output import placement_fields
 from influence.output import Table
 from vehicles.placement import Placement
 from vehicles.units import labels
@@ -99,22 +100,7 @@ def _lead(placement: Placement | None) -> float | str:
 def placement_document(placement: Placement | None, scale: float) -> dict[str, Any] | None:
     if placement is None:
         return None
-    return {
-        "value": placement.value * scale,
-        "value_one_lane": placement.value,
-        "model": placement.model,
-        "case": placement.case,
-        "direction": placement.direction,
-        "lead_position": placement.lead_position,
-        "axle_positions": placement.axle_positions,
-        "axle_loads": placement.axle_loads,
-        "gaps": [{"item": g.item, "attribute": g.attribute, "range": [g.low, g.high],
-                  "value": g.value} for g in placement.gaps],
-        "lane_segments": placement.lane_segments,
-        "lane_intensity": placement.lane_intensity,
-        "knife_edge_position": placement.knife_edge_position,
-        "knife_edge_load": placement.knife_edge_load,
-    }
+    return {**placement_fields(placement, scale), "value_one_lane": placement.value}
 
 
 def entry_document(entry: EnvelopeEntry, envelope: Envelope) -> dict[str, Any]:

@@ -22,10 +22,10 @@ def _concurrent_document(result: GoverningResult,
             for other, c in zip(result.others, values, strict=True)]
 
 
-def placement_document(placement: Placement, result: GoverningResult,
-                       values: Sequence[Concurrent]) -> dict[str, Any]:
+def placement_fields(placement: Placement, scale: float = 1.0) -> dict[str, Any]:
+    """A placement as plain data; ``value`` multiplied by ``scale`` (the live-load scale)."""
     return {
-        "value": placement.value,
+        "value": placement.value * scale,
         "vehicle": placement.model,
         "case": placement.case,
         "direction": placement.direction,
@@ -41,8 +41,13 @@ def placement_document(placement: Placement, result: GoverningResult,
         "knife_edge_position": placement.knife_edge_position,
         "knife_edge_load": placement.knife_edge_load,
         "limit_side": placement.limit_side,
-        "concurrent": _concurrent_document(result, values),
     }
+
+
+def placement_document(placement: Placement, result: GoverningResult,
+                       values: Sequence[Concurrent]) -> dict[str, Any]:
+    return {**placement_fields(placement),
+            "concurrent": _concurrent_document(result, values)}
 
 
 def governing_document(result: GoverningResult, title: str,

@@ -236,7 +236,11 @@ class Analysis:
                 else:
                     row = substitute(poly, lo, 1.0)
                 rows.append(row)
-                breakpoints.append(start + (hi - lo))
+                end = start + (hi - lo)
+                section = extraction.section_chainage
+                if section is not None and abs(end - section) <= SNAP * self.path.total_length:
+                    end = section  # the section's own chainage, not a sum that differs by an ulp
+                breakpoints.append(end)
         edges = np.array(breakpoints)
         return InfluenceLine(
             response=extraction.response,

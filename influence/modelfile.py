@@ -87,7 +87,7 @@ def read_toml(path: str | Path) -> dict[str, Any]:
 
 def model_from_document(document: dict[str, Any], source: str = "") -> Model:
     """Build a model from parsed TOML (either form)."""
-    _check_keys(document, TOP_KEYS, "top level", source)
+    check_keys(document, TOP_KEYS, "top level", source)
     title = str(document.get("title", Path(source).stem if source else "untitled"))
     units = document.get("units", "kN-m")
     if units not in UNIT_SYSTEMS:
@@ -107,20 +107,21 @@ def model_from_document(document: dict[str, Any], source: str = "") -> Model:
 
 
 def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
-    _check_keys(table, BEAM_KEYS, "beam", source)
+    check_keys(table, BEAM_KEYS, "beam", source)
     for key in ("spans", "EI", "supports"):
         if key not in table:
             raise ModelError(f"missing key {key!r}", source=source, item="beam",
                              fix=f"add beam.{key}")
-    spans = [_number(v, "beam.spans", source) for v in _list(table["spans"], "beam.spans", source)]
+    spans = [read_number(v, "beam.spans", source)
+             for v in _list(table["spans"], "beam.spans", source)]
     stiffness = table["EI"]
     if not isinstance(stiffness, list):
-        stiffness = _number(stiffness, "beam.EI", source)
+        stiffness = read_number(stiffness, "beam.EI", source)
     supports = [
         _support(entry, f"beam.supports[{i + 1}]", source, words=SPRING_WORDS)
         for i, entry in enumerate(_list(table["supports"], "beam.supports", source))
     ]
-    hinges = [_number(v, "beam.hinges", source)
+    hinges = [read_number(v, "beam.hinges", source)
               for v in _list(table.get("hinges", []), "beam.hinges", source)]
     names = table.get("names")
     if names is not None:
@@ -128,7 +129,7 @@ def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
         if len(set(names)) != len(names):
             raise ModelError("a support name is used twice", source=source, item="beam.names",
                              fix="give each support its own name")
-    EA = _number(table["EA"], "beam.EA", source) if "EA" in table else None
+    EA = read_number(table["EA"], "beam.EA", source) if "EA" in table else None
     return continuous_beam(spans, stiffness, supports, names=names, hinges=hinges, EA=EA,
                            title=title, units=units, source=source)
 
@@ -138,17 +139,18 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
     for number, entry in enumerate(_list(document.get("nodes", []), "nodes", source), start=1):
         item = f"nodes[{number}]"
         entry = _table(entry, item, source)
-        _check_keys(entry, NODE_KEYS, item, source)
+        check_keys(entry, NODE_KEYS, item, source)
         name = _required(entry, "name", item, source)
         support = _support(entry.get("support", "free"), f"node {name}", source,
                            words={"ux": "ux", "uy": "uy", "rz": "rz"})
-        nodes.append(Node(str(name), _number(_required(entry, "x", item, source), item, source),
-                          _number(_required(entry, "y", item, source), item, source), support))
+        x = read_number(_required(entry, "x", item, source), item, source)
+        y = read_number(_required(entry, "y", item, source), item, source)
+        nodes.append(Node(str(name), x, y, support))
     members = []
     for number, entry in enumerate(_list(document.get("members", []), "members", source), 1):
         item = f"members[{number}]"
         entry = _table(entry, item, source)
-        _check_keys(entry, MEMBER_KEYS, item, source)
+        check_keys(entry, MEMBER_KEYS, item, source)
         name = str(_required(entry, "name", item, source))
         item = f"member {name}"
         bar = bool(entry.get("bar", False))
@@ -166,7 +168,7 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
         raise ModelError("a general model needs nodes and members", source=source,
                          item="top level", fix="add [[nodes]] and [[members]] entries")
     path_table = _table(document.get("path"), "path", source)
-    _check_keys(path_table, PATH_KEYS, "path", source)
+    check_keys(path_table, PATH_KEYS, "path", source)
     legs: tuple[PathLeg, ...]
     if "members" in path_table:
         names = tuple(str(n) for n in _list(path_table["members"], "path.members", source))
@@ -186,10 +188,10 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
 def _stiffness(entry: dict[str, Any], product: str, section: str, item: str, source: str,
                default: float | None = None) -> float:
     if product in entry:
-        return _number(entry[product], f"{item}.{product}", source)
+        return read_number(entry[product], f"{item}.{product}", source)
     if "E" in entry and section in entry:
-        return _number(entry["E"], f"{item}.E", source) * _number(entry[section],
-                                                                  f"{item}.{section}", source)
+        modulus = read_number(entry["E"], f"{item}.E", source)
+        return modulus * read_number(entry[section], f"{item}.{section}", source)
     if default is not None:
         return default
     raise ModelError(f"no {product} given", source=source, item=item,
@@ -204,13 +206,13 @@ def _support(entry: Any, item: str, source: str, words: dict[str, str]) -> Suppo
             raise ModelError(error.problem, source=source, item=item, fix=error.fix) from None
     if isinstance(entry, dict):
         allowed = set(words) | {"kind"}
-        _check_keys(entry, allowed, item, source)
+        check_keys(entry, allowed, item, source)
         base = Support.named(str(entry.get("kind", "free")))
         values: dict[str, Any] = {"ux": base.ux, "uy": base.uy, "rz": base.rz}
         for word, direction in words.items():
             if word in entry:
                 value = entry[word]
-                values[direction] = value if isinstance(value, str) else _number(
+                values[direction] = value if isinstance(value, str) else read_number(
                     value, f"{item}.{word}", source)
         try:
             return Support(**values)
@@ -221,7 +223,8 @@ def _support(entry: Any, item: str, source: str, words: dict[str, str]) -> Suppo
                      fix='write "pinned", "roller", "fixed", "free" or {vertical = 1.0e5}')
 
 
-def _check_keys(table: dict[str, Any], allowed: set[str], item: str, source: str) -> None:
+def check_keys(table: dict[str, Any], allowed: set[str], item: str, source: str) -> None:
+    """Refuse a key that is not among ``allowed``, naming the allowed ones."""
     for key in table:
         if key not in allowed:
             raise ModelError(f"unknown key {key!r}", source=source, item=item,
@@ -250,7 +253,7 @@ def _list(value: Any, item: str, source: str) -> list[Any]:
     return value
 
 
-def _number(value: Any, item: str, source: str) -> float:
+def read_number(value: Any, item: str, source: str) -> float:
     if isinstance(value, bool) or not isinstance(value, int | float) or not math.isfinite(value):
         raise ModelError(f"expected a number, got {value!r}", source=source, item=item,
                          fix="write a plain number")

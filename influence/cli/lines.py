@@ -6,10 +6,11 @@ import click
 import numpy as np
 
 from influence.cli import main
+from influence.cli.placement import location_options
 from influence.lines import analyse_model
 from influence.modelfile import read_model
 from influence.output import render_csv, render_json, render_table
-from influence.responses import COMPONENTS, RESPONSE_KINDS, SIDES, Response
+from influence.responses import RESPONSE_KINDS, Response
 from influence.summary import render_summary, summarise
 from influence.tabulate import line_document, line_table, positions
 
@@ -45,13 +46,7 @@ def check_command(model_file: str, fmt: str, plot_file: str | None) -> None:
 @main.command("line")
 @click.argument("model_file", type=click.Path(dir_okay=False))
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
-@click.option("--at", "location", required=True,
-              help="Chainage, node or support name, or MEMBER@DISTANCE.")
-@click.option("--side", type=click.Choice(SIDES), default="right", show_default=True,
-              help="Side of the section where the line jumps or two members meet.")
-@click.option("--component", type=click.Choice(sorted({c for cs in COMPONENTS.values()
-                                                        for c in cs})),
-              help="Reaction: vertical, horizontal or moment; deflection: vertical or horizontal.")
+@location_options
 @click.option("--positions", "position_text", help="Exact ordinates at these load chainages.")
 @click.option("--step", type=float, help="Tabulation step along the path (breakpoints added).")
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from collections.abc import Callable
+
 import click
 
 from influence.cli import main
@@ -23,6 +25,21 @@ from vehicles.sweep import sweep
 _COMPONENTS = sorted({c for cs in COMPONENTS.values() for c in cs})
 
 
+def location_options(command: Callable[..., None]) -> Callable[..., None]:
+    """--at, --side and --component, as every command about one response takes them."""
+    for option in reversed((
+        click.option("--at", "location", required=True,
+                     help="Chainage, node or support name, or MEMBER@DISTANCE."),
+        click.option("--side", type=click.Choice(SIDES), default="right", show_default=True,
+                     help="Side of the section where the line jumps or two members meet."),
+        click.option("--component", type=click.Choice(_COMPONENTS),
+                     help="Reaction: vertical, horizontal or moment; deflection: vertical or "
+                          "horizontal."),
+    )):
+        command = option(command)
+    return command
+
+
 def _render(fmt: str, table, document) -> str:  # type: ignore[no-untyped-def]
     if fmt == "json":
         return render_json(document)
@@ -32,10 +49,7 @@ def _render(fmt: str, table, document) -> str:  # type: ignore[no-untyped-def]
 @main.command("govern")
 @click.argument("model_file", type=click.Path(dir_okay=False))
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
-@click.option("--at", "location", required=True,
-              help="Chainage, node or support name, or MEMBER@DISTANCE.")
-@click.option("--side", type=click.Choice(SIDES), default="right", show_default=True)
-@click.option("--component", type=click.Choice(_COMPONENTS))
+@location_options
 @click.option("--vehicle", "vehicles", multiple=True, required=True,
               help="Library load model name or vehicle file; repeat for several.")
 @click.option("--top", type=int, default=1, show_default=True,
@@ -74,10 +88,7 @@ def govern_command(model_file: str, response: str, location: str, side: str,
 @main.command("sweep")
 @click.argument("model_file", type=click.Path(dir_okay=False))
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
-@click.option("--at", "location", required=True,
-              help="Chainage, node or support name, or MEMBER@DISTANCE.")
-@click.option("--side", type=click.Choice(SIDES), default="right", show_default=True)
-@click.option("--component", type=click.Choice(_COMPONENTS))
+@location_options
 @click.option("--vehicle", required=True, help="Library load model name or vehicle file.")
 @click.option("--case", "case_name", help="One case of the load model (default: every case).")
 @click.option("--direction", type=click.Choice(["forward", "reverse", "both"]), default="both",
