@@ -50,7 +50,7 @@ def test_envelope_json_traces_every_value_to_a_placement() -> None:
     assert code == 0, output
     document = json.loads(output)
     entry = document["entries"][1]
-    assert entry["response"] == "moment" and entry["max"]["model"] == "HL-93"
+    assert entry["response"] == "moment" and entry["max"]["vehicle"] == "HL-93"
     assert entry["max"]["axle_positions"] and "Strength I" in entry["combinations"]
     assert document["units"]["moment"] == "kN-m"
 
