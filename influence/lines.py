@@ -87,7 +87,19 @@ class InfluenceLine:
         return float(self.breakpoints[-1] - self.breakpoints[0])
 
     def values(self, positions: np.ndarray | list[float], side: str = "right") -> np.ndarray:
-        """Ordinates at load chainages; at a jump ``side`` picks the left or right limit."""
+        """Ordinates at load chainages; at a jump ``side`` picks the left or right limit.
+
+        Example (10 m simple span, shear at 4: a load standing exactly on the section gives
+        -a/L from the left and (L - a)/L from the right; one standing on a support is carried
+        by the support alone):
+            >>> from influence.beamform import simple_beam
+            >>> shear = influence_line(simple_beam(10.0), Response("shear", "4"))
+            >>> left, right = shear.values([4.0], side="left")[0], shear.values([4.0])[0]
+            >>> round(float(left), 12), round(float(right), 12)
+            (-0.4, 0.6)
+            >>> float(shear.values([0.0])[0]), float(shear.values([10.0])[0])
+            (0.0, 0.0)
+        """
         x = np.atleast_1d(np.asarray(positions, dtype=float))
         # a chainage within round-off of a breakpoint is that breakpoint (so sides are honoured)
         nearest = np.clip(np.searchsorted(self.breakpoints, x), 1, len(self.breakpoints) - 1)
