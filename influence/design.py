@@ -23,6 +23,7 @@ These tables sit beside the structure in the same TOML file::
     distribution = 0.6          # lanes (or fraction of a lane) carried by this girder line
     multiple_presence = 1.2
     vehicles = ["HL-93"]        # default load models for envelopes and reports
+    adjust = { alpha = 1.21 }   # inputs of those load models (see `influence vehicles NAME`)
     deflection_limit = 800      # live-load deflection limit: span / 800
 
     [sections]
@@ -36,7 +37,7 @@ allowance, times the distribution and multiple presence factors).
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
 
@@ -49,7 +50,7 @@ LIVE_LOAD = "LL"
 
 LOAD_KEYS = {"name", "load", "uniform", "members", "from", "to", "point", "at"}
 COMBINATION_KEYS = {"name", "factors"}
-LIVE_KEYS = {"distribution", "multiple_presence", "vehicles", "deflection_limit"}
+LIVE_KEYS = {"distribution", "multiple_presence", "vehicles", "deflection_limit", "adjust"}
 SECTION_KEYS = {"per_span", "step", "extra"}
 
 
@@ -97,6 +98,7 @@ class LiveLoadSettings:
     multiple_presence: float = 1.0
     vehicles: tuple[str, ...] = ()
     deflection_limit: float | None = None  # N in span / N
+    adjust: dict[str, float] = field(default_factory=dict)  # load-model adjustments by name
 
     @property
     def scale(self) -> float:
@@ -160,6 +162,9 @@ def design_from_document(document: dict[str, Any], model: Model, source: str = "
         vehicles=tuple(str(v) for v in live_table.get("vehicles", [])),
         deflection_limit=None if limit is None else _positive(
             limit, "live_load.deflection_limit", source),
+        adjust={str(k): read_number(v, f"live_load.adjust.{k}", source) for k, v in
+                _table(live_table.get("adjust", {}), "live_load.adjust",
+                       set(live_table.get("adjust", {})), source).items()},
     )
     section_table = _table(document.get("sections", {}), "sections", SECTION_KEYS, source)
     per_span = section_table.get("per_span", 10)

@@ -5,6 +5,7 @@ from __future__ import annotations
 import json
 from pathlib import Path
 
+import pytest
 from click.testing import CliRunner
 
 from influence.cli import main
@@ -58,3 +59,15 @@ def test_bad_concurrent_spec() -> None:
     code, output = invoke("govern", OVERPASS, "moment", "--at", "40", "--vehicle", "LM2",
                           "--concurrent", "torque@P1")
     assert code == 1 and "RESPONSE@LOCATION" in output
+
+
+def test_adjustment_scales_the_effect_and_unknown_names_are_refused() -> None:
+    # EN 1991-2 6.3.2(3): the classification factor alpha multiplies Load Model 71 (axles and
+    # uniform load alike), so every effect scales with it
+    args = ("govern", OVERPASS, "moment", "--at", "40", "--vehicle", "LM71", "--format", "json")
+    plain = json.loads(invoke(*args)[1])["max"]["value"]
+    code, output = invoke(*args, "--adjust", "alpha=1.21")
+    assert code == 0, output
+    assert json.loads(output)["max"]["value"] == pytest.approx(1.21 * plain)
+    code, output = invoke(*args, "--adjust", "beta=2")
+    assert code == 1 and "no load model given has an adjustment named 'beta'" in output

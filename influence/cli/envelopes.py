@@ -10,6 +10,7 @@ from typing import Any
 import click
 
 from influence.cli import main
+from influence.cli.vehicles import parse_adjustments
 from influence.design import DesignBasis, SectionSettings, read_design
 from influence.envelope import ENVELOPE_CHOICES, ENVELOPE_RESPONSES, Envelope, envelope
 from influence.envelope_output import deflection_table, envelope_document, envelope_table
@@ -22,15 +23,15 @@ from influence.sections import envelope_sections
 from vehicles.loadmodel import LoadModel
 
 
-def resolve_vehicles(names: tuple[str, ...], model: Model,
-                     basis: DesignBasis) -> tuple[list[LoadModel], list[str]]:
+def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis,
+                     adjust: dict[str, float]) -> tuple[list[LoadModel], list[str]]:
     """Load models named on the command line, else in the model file, in the model's units,
     with notes on those converted."""
     chosen = names or basis.live.vehicles
     if not chosen:
         raise ModelError("no vehicles given", source=model.source, item="live load",
                          fix="give --vehicle NAME or FILE, or live_load.vehicles in the file")
-    return vehicles_for(chosen, model.units)
+    return vehicles_for(chosen, model.units, {**basis.live.adjust, **adjust})
 
 
 @contextmanager
@@ -54,9 +55,10 @@ class _Null:
 
 
 def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
-                 step: float | None, per_span: int | None, quiet: bool) -> tuple[Model, Envelope]:
+                 step: float | None, per_span: int | None, quiet: bool,
+                 adjust: tuple[str, ...] = ()) -> tuple[Model, Envelope]:
     model, basis = read_design(model_file)
-    models, notes = resolve_vehicles(vehicles, model, basis)
+    models, notes = resolve_vehicles(vehicles, model, basis, parse_adjustments(adjust))
     analysis = analyse_model(model)
     settings = basis.sections
     if step is not None or per_span is not None:
@@ -78,6 +80,8 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
 @click.argument("model_file", type=click.Path(dir_okay=False))
 @click.option("--vehicle", "vehicles", multiple=True,
               help="Library load model name or vehicle file; repeat for several.")
+@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
+              help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
 @click.option("--responses", "responses", multiple=True,
               type=click.Choice(ENVELOPE_CHOICES), help="Responses to envelope (repeatable).")
 @click.option("--step", type=float, help="Section spacing along each span [length].")
@@ -87,14 +91,15 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
               help="Draw the envelopes to a PNG, SVG or PDF file.")
 @click.option("--quiet", is_flag=True, help="No progress bar.")
-def envelope_command(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
+def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str, ...],
+                     responses: tuple[str, ...],
                      step: float | None, per_span: int | None, fmt: str, plot_file: str | None,
                      quiet: bool) -> None:
     """Envelopes of the largest and smallest live-load effects at every section of MODEL_FILE,
     with the dead loads and factored combinations of the file."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
-    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet)
+    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
     kinds = responses or ENVELOPE_RESPONSES
     if fmt == "json":
         click.echo(render_json(envelope_document(result, model.title)))
@@ -118,19 +123,22 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], responses: tupl
               help="Library load model name or vehicle file; repeat for several.")
 @click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
               help="Folder for report.pdf, figures/ and tables/.")
+@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
+              help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
 @click.option("--responses", "responses", multiple=True,
               type=click.Choice(ENVELOPE_CHOICES), help="Responses to envelope (repeatable).")
 @click.option("--step", type=float, help="Section spacing along each span [length].")
 @click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
 @click.option("--quiet", is_flag=True, help="No progress bar.")
-def report_command(model_file: str, vehicles: tuple[str, ...], out_dir: str,
+def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str, ...],
+                   out_dir: str,
                    responses: tuple[str, ...], step: float | None, per_span: int | None,
                    quiet: bool) -> None:
     """Write the calculation package for MODEL_FILE: a PDF report, its figures as PNG and the
     envelope and combination tables as CSV."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
-    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet)
+    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
     from influence.report import write_report
 
     files = write_report(analyse_model(model), result, out_dir, responses or ENVELOPE_RESPONSES)

@@ -7,6 +7,7 @@ from collections.abc import Callable
 import click
 
 from influence.cli import main
+from influence.cli.vehicles import parse_adjustments
 from influence.governing import governing, parse_concurrent
 from influence.governing_output import (
     governing_document,
@@ -52,6 +53,8 @@ def _render(fmt: str, table, document) -> str:  # type: ignore[no-untyped-def]
 @location_options
 @click.option("--vehicle", "vehicles", multiple=True, required=True,
               help="Library load model name or vehicle file; repeat for several.")
+@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
+              help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
 @click.option("--top", type=int, default=1, show_default=True,
               help="How many distinct governing positions to list for each sense.")
 @click.option("--concurrent", "concurrent_text", multiple=True,
@@ -61,12 +64,13 @@ def _render(fmt: str, table, document) -> str:  # type: ignore[no-untyped-def]
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
               help="Draw the line, the governing trains and the sweeps to PNG, SVG or PDF.")
 def govern_command(model_file: str, response: str, location: str, side: str,
-                   component: str | None, vehicles: tuple[str, ...], top: int,
+                   component: str | None, vehicles: tuple[str, ...], adjust: tuple[str, ...],
+                   top: int,
                    concurrent_text: tuple[str, ...], fmt: str, plot_file: str | None) -> None:
     """Where the vehicles must stand for the largest and smallest RESPONSE at a location, how
     large it is, and what else happens then."""
     model = read_model(model_file)
-    models, notes = vehicles_for(vehicles, model.units)
+    models, notes = vehicles_for(vehicles, model.units, parse_adjustments(adjust))
     analysis = analyse_model(model)
     result = governing(analysis, Response(response, location, side, component or ""), models,
                        top=top, concurrent_with=[parse_concurrent(t) for t in concurrent_text])
@@ -90,6 +94,8 @@ def govern_command(model_file: str, response: str, location: str, side: str,
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
 @location_options
 @click.option("--vehicle", required=True, help="Library load model name or vehicle file.")
+@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
+              help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
 @click.option("--case", "case_name", help="One case of the load model (default: every case).")
 @click.option("--direction", type=click.Choice(["forward", "reverse", "both"]), default="both",
               show_default=True)
@@ -100,11 +106,12 @@ def govern_command(model_file: str, response: str, location: str, side: str,
               show_default=True)
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False))
 def sweep_command(model_file: str, response: str, location: str, side: str,
-                  component: str | None, vehicle: str, case_name: str | None, direction: str,
+                  component: str | None, vehicle: str, adjust: tuple[str, ...],
+                  case_name: str | None, direction: str,
                   sense: str, step: float | None, fmt: str, plot_file: str | None) -> None:
     """The effect on RESPONSE as the vehicle travels, against its lead position (exact)."""
     model = read_model(model_file)
-    models, notes = vehicles_for((vehicle,), model.units)
+    models, notes = vehicles_for((vehicle,), model.units, parse_adjustments(adjust))
     line = analyse_model(model).line(Response(response, location, side, component or ""))
     cases = [c for c in models[0].cases if case_name in (None, c.name)]
     if not cases:

@@ -13,7 +13,8 @@ from vehicles.tables import as_json, library_table, model_text
 from vehicles.units import SYSTEMS
 
 
-def _adjustments(values: tuple[str, ...]) -> dict[str, float]:
+def parse_adjustments(values: tuple[str, ...]) -> dict[str, float]:
+    """NAME=VALUE pairs of --adjust as a mapping."""
     parsed = {}
     for value in values:
         name, equals, number = value.partition("=")
@@ -46,7 +47,7 @@ def vehicles_command(name: str | None, units: str | None, output_format: str,
         rows = [summary(model) for model in library_models(units)]
         click.echo(library_table(rows) if output_format == "table" else as_json(rows))
         return
-    model = load_model(name, units, _adjustments(adjust))
+    model = load_model(name, units, parse_adjustments(adjust))
     if plot_path is not None:
         from vehicles.plot import plot_model
 
