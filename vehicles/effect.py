@@ -52,10 +52,10 @@ from vehicles.piecewise import (
     horner,
     pieces_from_ppoly,
     roots_inside,
-    shifted_sum,
     signed_part,
     split_at_zeros,
 )
+from vehicles.ragged import TableBatch, shifted_sums
 from vehicles.train import Arrangement
 
 DIRECTIONS = ("forward", "reverse")
@@ -93,6 +93,11 @@ class PreparedInfluence:
     largest: Ordinate
     smallest: Ordinate
     jumps: np.ndarray
+
+    @cached_property
+    def batch(self) -> TableBatch:
+        """The tables as a batch of one, for :func:`vehicles.ragged.shifted_sums`."""
+        return TableBatch.of([self.line.breaks], [self.tables])
 
     @property
     def start(self) -> float:
@@ -281,14 +286,34 @@ def summed(
     constant: float,
 ) -> Pieces:
     """The exact sum of the shifted terms plus a constant, as padded pieces."""
-    pad = max(prepared.end - prepared.start, 1.0)
-    if which.size == 0:
-        coeffs = np.zeros((prepared.tables.shape[1], 1))
-        coeffs[0] = constant
-        return Pieces(np.array([prepared.start - pad, prepared.end + pad]), coeffs)
-    pieces = shifted_sum(prepared.line.breaks, prepared.tables, which, shifts, weights, pad)
-    pieces.coeffs[0] += constant
-    return pieces
+    ragged = shifted_sums(prepared.batch, which, shifts[None, :], weights, np.array([constant]))
+    return ragged.function(0)
+
+
+@dataclass(frozen=True)
+class Terms:
+    """The varying terms of an effect function, the same for every influence line.
+
+    Attributes:
+        rows: table row of each term (the line, its integral, or the integral of its positive
+            or negative part).
+        shifts: shift of each term [length].
+        weights: multiplier of each term [force] or [force/length].
+        totals: (multiplier, table row) of the constant parts: an integral whose end reaches
+            past the path adds ``multiplier`` times that row's full value.
+    """
+
+    rows: np.ndarray
+    shifts: np.ndarray
+    weights: np.ndarray
+    totals: tuple[tuple[float, int], ...]
+
+    def constant(self, row_totals: Sequence[np.ndarray] | np.ndarray) -> np.ndarray:
+        """The constant parts for lines whose full row values are ``row_totals[row]``."""
+        constant = np.zeros(np.shape(row_totals[0]))
+        for multiplier, row in self.totals:
+            constant = constant + multiplier * row_totals[row]
+        return constant
 
 
 def effect_terms(
@@ -300,13 +325,28 @@ def effect_terms(
 ) -> tuple[np.ndarray, np.ndarray, np.ndarray, float]:
     """The varying terms of E: (table row, shift [length], weight) per term, plus constants.
 
+    See :func:`terms_of`; the constant is evaluated for this line.
+    """
+    terms = terms_of(case, arrangement, direction, sense)
+    constant = float(terms.constant(prepared.tables[:, 0, -1]))
+    return terms.rows, terms.shifts, terms.weights, constant
+
+
+def terms_of(
+    case: LoadCase,
+    arrangement: Arrangement | None,
+    direction: str,
+    sense: str,
+) -> Terms:
+    """The varying terms of E, which do not depend on the influence line.
+
     Axles are shifted copies of the line; a patch over offsets [a, b] is the difference of two
     shifted copies of its integral (a copy shifted to infinity is a constant). With
     ``lane_clear_of_train`` the lane is taken off the cleared footprint the same way, using the
     integral of the adverse part.
     """
     if arrangement is None:
-        return np.zeros(0, dtype=int), np.zeros(0), np.zeros(0), 0.0
+        return Terms(np.zeros(0, dtype=int), np.zeros(0), np.zeros(0), ())
     sign = -1.0 if direction == "forward" else 1.0
     rows: list[np.ndarray] = [np.full(arrangement.axle_offsets.size, _LINE)]
     shifts: list[np.ndarray] = [sign * arrangement.axle_offsets]
@@ -322,7 +362,7 @@ def effect_terms(
         row = _POSITIVE_AREA if sense == "max" else _NEGATIVE_AREA
         intervals.append((np.array([front - clear]), np.array([rear + clear]),
                           np.array([intensity]), row))
-    constant = 0.0
+    totals: list[tuple[float, int]] = []
     for starts, ends, intensities, row in intervals:
         low = np.minimum(sign * starts, sign * ends)
         high = np.maximum(sign * starts, sign * ends)
@@ -332,9 +372,10 @@ def effect_terms(
             shifts.append(ends_at[finite])
             weights.append(side * intensities[finite])
             # an end at +infinity reaches past the path: the integral's full value
-            constant += float((side * intensities[~finite] * (ends_at[~finite] > 0)).sum()
-                              * prepared.tables[row, 0, -1])
-    return np.concatenate(rows), np.concatenate(shifts), np.concatenate(weights), constant
+            totals.append((float((side * intensities[~finite] * (ends_at[~finite] > 0)).sum()),
+                           row))
+    return Terms(np.concatenate(rows), np.concatenate(shifts), np.concatenate(weights),
+                 tuple(totals))
 
 
 def constant_terms(prepared: PreparedInfluence, case: LoadCase, kind: str, sense: str) -> float:
@@ -342,10 +383,18 @@ def constant_terms(prepared: PreparedInfluence, case: LoadCase, kind: str, sense
 
     A cleared footprint is subtracted by the varying terms of :func:`effect_terms`.
     """
-    scale = case.factor * (1 + case.lane_allowance)
-    total = scale * case.lane * prepared.adverse_area(sense)
     ordinate = prepared.adverse_ordinate(sense)
+    return float(lane_constants(case, kind, np.array(prepared.adverse_area(sense)),
+                                np.array(0.0 if ordinate is None else ordinate.value)))
+
+
+def lane_constants(case: LoadCase, kind: str, areas: np.ndarray,
+                   ordinates: np.ndarray) -> np.ndarray:
+    """:func:`constant_terms` for lines with these adverse areas [response x length] and
+    adverse extreme ordinates (0 where a line never has the sought sign)."""
+    scale = case.factor * (1 + case.lane_allowance)
+    total = scale * case.lane * areas
     knife = case.knife_edge_for(kind)
-    if ordinate is not None and knife > 0:
-        total += scale * knife * ordinate.value
+    if knife > 0:
+        total = np.where(ordinates != 0, total + scale * knife * ordinates, total)
     return total

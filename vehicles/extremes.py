@@ -20,7 +20,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from vehicles.piecewise import Pieces, horner, unit_roots
+from vehicles.piecewise import Pieces
+from vehicles.ragged import Ragged, skeletons
 
 RELATIVE_VALUE_TOLERANCE = 1e-9
 """Values closer than this fraction of the largest magnitude count as equal (plateaus, jumps)."""
@@ -65,26 +66,8 @@ class Peak:
 
 def skeleton(pieces: Pieces) -> Skeleton:
     """Every piece's two end limits and interior stationary points, in chainage order."""
-    coeffs = pieces.coeffs
-    widths = pieces.widths
-    count = coeffs.shape[1]
-    degree = coeffs.shape[0] - 1
-    if degree >= 2:
-        # E'(u) in the normalised variable v = u / width: (q+1) a_{q+1} width^(q+1)
-        q = np.arange(1, degree + 1)[:, None]
-        column, v = unit_roots(coeffs[1:] * q * widths[None, :] ** q)
-        inside = (v > 0.0) & (v < 1.0)
-        column, v = column[inside], v[inside]
-    else:
-        column, v = np.zeros(0, dtype=int), np.zeros(0)
-    u = v * widths[column]
-    piece = np.concatenate([np.arange(count), column, np.arange(count)])
-    order_in_piece = np.concatenate([np.full(count, -1.0), v, np.full(count, 2.0)])
-    positions = np.concatenate([pieces.breaks[:-1], pieces.breaks[column] + u, pieces.breaks[1:]])
-    values = np.concatenate([coeffs[0], horner(coeffs[:, column], u), pieces.end_values()])
-    sides = np.concatenate([np.ones(count, int), np.zeros(column.size, int), -np.ones(count, int)])
-    order = np.lexsort((order_in_piece, piece))
-    return Skeleton(positions[order], values[order], sides[order])
+    found = skeletons(Ragged.of([pieces]), RELATIVE_VALUE_TOLERANCE)
+    return Skeleton(found.positions, found.values, found.sides)
 
 
 def peak_indices(sk: Skeleton) -> np.ndarray:

@@ -240,39 +240,3 @@ def extended_table(pieces: Pieces, degree: int, after: float) -> np.ndarray:
     table[:, 1 : n + 1] = padded(pieces.coeffs, degree)
     table[0, n + 1] = after
     return table
-
-
-def shifted_sum(
-    breaks: np.ndarray,
-    tables: np.ndarray,
-    which: np.ndarray,
-    shifts: np.ndarray,
-    weights: np.ndarray,
-    pad: float,
-) -> Pieces:
-    """Exact sum over terms t of ``weights[t] * f_which[t](x + shifts[t])``.
-
-    Args:
-        breaks: breakpoints shared by every function f [length] (n+1,).
-        tables: extended coefficient tables (functions, degree+1, n+2), see :func:`extended_table`.
-        which: function index of each term (T,).
-        shifts: finite shift of each term [length] (T,).
-        weights: multiplier of each term (T,).
-        pad: length of the constant piece added before and after the varying part [length].
-
-    Returns:
-        The sum on the union of the shifted breakpoints, with one constant piece at each end.
-    """
-    n = breaks.size - 1
-    extent = float(breaks[-1] - breaks[0])
-    grid = merged_breaks(breaks[None, :] - shifts[:, None], extent)
-    grid = np.concatenate([[grid[0] - pad], grid, [grid[-1] + pad]])
-    starts = grid[:-1]
-    mids = 0.5 * (starts + grid[1:])
-    index = np.searchsorted(breaks, mids[None, :] + shifts[:, None], side="right") - 1
-    inside = (index >= 0) & (index < n)
-    base = breaks[np.clip(index, 0, n - 1)]
-    h = np.where(inside, starts[None, :] + shifts[:, None] - base, 0.0)
-    coeffs = tables[which[:, None], :, index + 1]  # (T, M, degree+1)
-    shifted = taylor_shift(np.moveaxis(coeffs, -1, 0), h)
-    return Pieces(grid, np.einsum("ktm,t->km", shifted, weights))

@@ -28,7 +28,7 @@ Example:
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Iterator, Sequence
 from dataclasses import dataclass
 
 import numpy as np
@@ -38,7 +38,7 @@ from vehicles.effect import DIRECTIONS, EffectFunction, PreparedInfluence, check
 from vehicles.errors import VehicleError
 from vehicles.extremes import Peak, Skeleton, distinct_peaks
 from vehicles.gaps import best_effects
-from vehicles.loadmodel import LoadModel
+from vehicles.loadmodel import LoadCase, LoadModel
 
 POSITION_TOLERANCE_FRACTION = 1e-9
 """An axle within this fraction of the path length of the section stands over it."""
@@ -164,20 +164,14 @@ def govern(
         check_request(kind, "max", direction)
     prepared = prepare(influence)
     found: dict[str, list[Placement]] = {"max": [], "min": []}
-    for model in models:
-        for case in model.cases:
-            senses = [s for s in ("max", "min") if case.applies_to(kind, s, interior=interior)]
-            if not senses:
-                continue
-            ways = tuple(directions) if case.train is not None else ("forward",)
-            for direction in ways:
-                effects = best_effects(prepared, case, kind=kind, senses=senses,
-                                       direction=direction, gap_tolerance=gap_tolerance)
-                for sense, effect in effects.items():
-                    found[sense].extend(
-                        placements(effect, prepared, model.name, section=section, count=top)
-                    )
-    tops = {sense: _ranked(found[sense], sense)[:top] for sense in ("max", "min")}
+    for model, case, senses, direction in visits(models, kind, interior, directions):
+        effects = best_effects(prepared, case, kind=kind, senses=senses, direction=direction,
+                               gap_tolerance=gap_tolerance)
+        for sense, effect in effects.items():
+            found[sense].extend(
+                placements(effect, prepared, model.name, section=section, count=top)
+            )
+    tops = {sense: ranked(found[sense], sense)[:top] for sense in ("max", "min")}
     return Governing(
         kind,
         tops["max"][0] if tops["max"] else None,
@@ -188,7 +182,22 @@ def govern(
     )
 
 
-def _ranked(found: list[Placement], sense: str) -> list[Placement]:
+def visits(
+    models: Sequence[LoadModel], kind: str, interior: bool, directions: Sequence[str]
+) -> Iterator[tuple[LoadModel, LoadCase, list[str], str]]:
+    """(model, case, senses it applies to, direction) in the order the search tries them."""
+    for model in models:
+        for case in model.cases:
+            senses = [s for s in ("max", "min") if case.applies_to(kind, s, interior=interior)]
+            if not senses:
+                continue
+            ways = tuple(directions) if case.train is not None else ("forward",)
+            for direction in ways:
+                yield model, case, senses, direction
+
+
+def ranked(found: list[Placement], sense: str) -> list[Placement]:
+    """Placements most adverse first."""
     sign = -1.0 if sense == "max" else 1.0
     # stable: ties keep model, case and direction order
     return sorted(found, key=lambda p: sign * p.value)
@@ -212,8 +221,17 @@ def placements(
     Peaks where the train is entirely off the path are listed only when nothing else is.
     """
     prepared = prepare(influence)
-    sk = _signed_skeleton(effect, effect.sense)
-    breaks = effect.pieces.breaks
+    sign = 1.0 if effect.sense == "max" else -1.0
+    return [
+        placement_at(effect, prepared, model, Peak(p.position, sign * p.value, p.side),
+                     section=section)
+        for p in chosen_peaks(_signed_skeleton(effect, effect.sense), effect.pieces.breaks, count)
+    ]
+
+
+def chosen_peaks(sk: Skeleton, breaks: np.ndarray, count: int) -> list[Peak]:
+    """The peaks :func:`placements` describes, of a skeleton signed so that larger is more
+    adverse, on an effect function with breakpoints ``breaks`` (lead positions [length])."""
     peaks = distinct_peaks(sk, count + 2)
     loaded = [p for p in peaks if _is_loaded(p, breaks)]
     unloaded = [p for p in peaks if not _is_loaded(p, breaks)]
@@ -222,12 +240,7 @@ def placements(
         # nothing on the path is as adverse as any loaded position: say so with the train off
         edge = float(breaks[1] if unloaded[0].position < breaks[1] else breaks[-2])
         chosen = [Peak(edge, unloaded[0].value, None), *loaded[: count - 1]]
-    sign = 1.0 if effect.sense == "max" else -1.0
-    return [
-        placement_at(effect, prepared, model, Peak(p.position, sign * p.value, p.side),
-                     section=section)
-        for p in chosen
-    ]
+    return chosen
 
 
 def _is_loaded(peak: Peak, breaks: np.ndarray) -> bool:
