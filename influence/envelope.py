@@ -24,6 +24,7 @@ from influence.design import LIVE_LOAD, Combination, DesignBasis
 from influence.lines import Analysis, InfluenceLine
 from influence.responses import Response
 from influence.sections import Section, Span, envelope_sections, spans
+from vehicles.batch import govern_many
 from vehicles.loadmodel import LoadModel
 from vehicles.placement import Governing, Placement, govern
 
@@ -34,6 +35,10 @@ ENVELOPE_CHOICES = (*ENVELOPE_RESPONSES, "axial")
 DEFLECTION_REFINEMENT = 1e-4
 """Bracket [fraction of the span] of the search for the section of largest live deflection
 between envelope sections; the deflection at each trial section is exact."""
+
+LIVE_BLOCK = 256
+"""Influence lines searched together (vehicles.batch.govern_many); progress is reported a block
+at a time."""
 
 Progress = Callable[[int], None]
 
@@ -166,10 +171,17 @@ def envelope(
     pairs = section_responses(sections, kinds)
     lines = analysis.lines([response for _, response in pairs])
     entries = []
-    for (section, _), line in zip(pairs, lines, strict=True):
-        entries.append(_entry(analysis, section, line, models, basis))
+    for start in range(0, len(lines), LIVE_BLOCK):
+        block = lines[start : start + LIVE_BLOCK]
+        lives = govern_many([line.ppoly for line in block], models,
+                            kinds=[line.response.kind for line in block],
+                            interiors=[line.interior_support for line in block],
+                            sections=[line.section_chainage for line in block])
+        for (section, _), line, live in zip(pairs[start : start + LIVE_BLOCK], block, lives,
+                                            strict=True):
+            entries.append(_entry(analysis, section, line, live, basis))
         if progress:
-            progress(1)
+            progress(len(block))
     checks: tuple[DeflectionCheck, ...] = ()
     if basis.live.deflection_limit and "deflection" in kinds:
         checks = tuple(deflection_checks(analysis, models, basis, entries))
@@ -177,10 +189,8 @@ def envelope(
                     tuple(notes))
 
 
-def _entry(analysis: Analysis, section: Section, line: InfluenceLine,
-           models: Sequence[LoadModel], basis: DesignBasis) -> EnvelopeEntry:
-    live = govern(line.ppoly, models, kind=line.response.kind,
-                  interior=line.interior_support, section=line.section_chainage)
+def _entry(analysis: Analysis, section: Section, line: InfluenceLine, live: Governing,
+           basis: DesignBasis) -> EnvelopeEntry:
     dead = dead_load_effects(line, basis.loads, analysis.path)
     return EnvelopeEntry(section, line.response, live, basis.live.scale,
                          tuple(dead.items()))
