@@ -25,7 +25,7 @@ from vehicles.effect import (
     PreparedInfluence,
     Terms,
     lane_constants,
-    lane_is_cleared,
+    sense_dependent,
     terms_of,
 )
 from vehicles.extremes import RELATIVE_VALUE_TOLERANCE, Skeleton
@@ -161,11 +161,6 @@ Effects = ManyEffects | LineByLine
 
 def _arranged(train: Train, choices: Choices) -> Arrangement:
     return train.arranged(choices)
-
-
-def sense_dependent(case: LoadCase) -> bool:
-    """Whether the varying terms differ between the largest and the smallest effect."""
-    return lane_is_cleared(case)
 
 
 def best_effects_many(

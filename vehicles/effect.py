@@ -61,7 +61,7 @@ from vehicles.train import Arrangement
 DIRECTIONS = ("forward", "reverse")
 
 # rows of PreparedInfluence.tables
-_LINE, _AREA, _POSITIVE_AREA, _NEGATIVE_AREA = range(4)
+_LINE, _AREA, _POSITIVE_AREA, _NEGATIVE_AREA, _POSITIVE_LINE, _NEGATIVE_LINE = range(6)
 
 
 @dataclass(frozen=True)
@@ -151,6 +151,8 @@ def prepare(influence: PPoly | PreparedInfluence) -> PreparedInfluence:
         extended_table(area, degree, totals[0]),
         extended_table(positive, degree, totals[1]),
         extended_table(negative, degree, totals[2]),
+        extended_table(signed_part(line, 1.0), degree, 0.0),
+        extended_table(signed_part(line, -1.0), degree, 0.0),
     ])
     largest, smallest = _extreme_ordinates(line)
     left = np.concatenate([[0.0], line.end_values()])
@@ -252,16 +254,22 @@ def lane_is_cleared(case: LoadCase) -> bool:
     return case.lane > 0 and case.lane_clear_of_train is not None and case.train is not None
 
 
+def sense_dependent(case: LoadCase) -> bool:
+    """Whether the varying terms of E differ between the largest and the smallest effect: the
+    lane is cleared around the train, or axles act only on the adverse part of the line."""
+    return lane_is_cleared(case) or (case.neglect_relieving_axles and case.train is not None)
+
+
 def resensed(effect: EffectFunction, prepared: PreparedInfluence, sense: str) -> EffectFunction:
     """The same arrangement's effect function for another sense.
 
-    Without a cleared lane only the constant terms (lane on the adverse area, knife-edge load)
-    depend on the sense; otherwise the function is built again.
+    Unless :func:`sense_dependent`, only the constant terms (lane on the adverse area,
+    knife-edge load) depend on the sense; otherwise the function is built again.
     """
     if sense == effect.sense:
         return effect
     case, kind = effect.case, effect.kind
-    if lane_is_cleared(case):
+    if sense_dependent(case):
         choices = effect.arrangement.choices if effect.arrangement is not None else None
         return effect_function(prepared, case, kind=kind, sense=sense,
                                direction=effect.direction, choices=choices)
@@ -340,7 +348,8 @@ def terms_of(
 ) -> Terms:
     """The varying terms of E, which do not depend on the influence line.
 
-    Axles are shifted copies of the line; a patch over offsets [a, b] is the difference of two
+    Axles are shifted copies of the line (of its adverse part alone when the case neglects
+    relieving axles); a patch over offsets [a, b] is the difference of two
     shifted copies of its integral (a copy shifted to infinity is a constant). With
     ``lane_clear_of_train`` the lane is taken off the cleared footprint the same way, using the
     integral of the adverse part.
@@ -348,7 +357,11 @@ def terms_of(
     if arrangement is None:
         return Terms(np.zeros(0, dtype=int), np.zeros(0), np.zeros(0), ())
     sign = -1.0 if direction == "forward" else 1.0
-    rows: list[np.ndarray] = [np.full(arrangement.axle_offsets.size, _LINE)]
+    axle_row = _LINE
+    if case.neglect_relieving_axles:
+        # an axle on the relieving part of the line is left off: it acts on the adverse part only
+        axle_row = _POSITIVE_LINE if sense == "max" else _NEGATIVE_LINE
+    rows: list[np.ndarray] = [np.full(arrangement.axle_offsets.size, axle_row)]
     shifts: list[np.ndarray] = [sign * arrangement.axle_offsets]
     weights: list[np.ndarray] = [case.factor * (1 + case.axle_allowance) * arrangement.axle_loads]
     patch_weights = case.factor * (1 + case.patch_allowance) * arrangement.patch_intensities

@@ -42,9 +42,9 @@ from vehicles.effect import (
     constant_terms,
     effect_function,
     effect_terms,
-    lane_is_cleared,
     prepare,
     resensed,
+    sense_dependent,
     summed,
 )
 from vehicles.extremes import skeleton
@@ -90,11 +90,11 @@ def best_effects(
 ) -> dict[str, EffectFunction]:
     """:func:`best_effect` for several senses, sharing every effect function built.
 
-    Unless the lane is cleared around the train, the effect functions for the largest and the
+    Unless :func:`vehicles.effect.sense_dependent`, the effect functions for the largest and the
     smallest effect differ by a constant, so one build per set of ranged values serves both.
     """
     prepared = prepare(influence)
-    shared = not lane_is_cleared(case)
+    shared = not sense_dependent(case)
     built: dict[tuple[str, tuple[float, ...] | None], tuple[EffectFunction, float, float]] = {}
     min_shift = 0.0
     if shared:

@@ -92,6 +92,10 @@ class LoadCase:
         knife_edge_moment: concentrated load at the extreme ordinate for moments and every
             response other than shear and reactions [force].
         knife_edge_shear: concentrated load at the extreme ordinate for shear and reactions [force].
+        neglect_relieving_axles: each axle acts only on the adverse part of the influence line
+            (the positive part for the largest effect, the negative part for the smallest): an
+            axle that would reduce the effect is left off (AASHTO LRFD 3.6.1.3.1: axles that do
+            not contribute to the extreme force effect are neglected).
         scope: the responses the case applies to.
         note: free text shown with the case (clause, assumptions).
     """
@@ -106,6 +110,7 @@ class LoadCase:
     lane_clear_of_train: float | None = None
     knife_edge_moment: float = 0.0
     knife_edge_shear: float = 0.0
+    neglect_relieving_axles: bool = False
     scope: Scope = field(default_factory=Scope)
     note: str = ""
 

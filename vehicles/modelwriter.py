@@ -120,6 +120,8 @@ def _case_lines(case: LoadCase) -> list[str]:
         value = getattr(case, field)
         if value != default:
             lines.append(f"{key} = {_number(value)}")
+    if case.neglect_relieving_axles:
+        lines.append("neglect_relieving_axles = true")
     lines += _given(scope=case.scope.effects, note=case.note)
     if case.train is not None:
         lines += ["", *_train_lines(case.train, "case.train")]

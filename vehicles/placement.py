@@ -88,6 +88,8 @@ class Placement:
             is that one-sided limit (every load nudged toward lower or higher chainage), else
             None.
         axles_at_jump: indices of the axles standing exactly on a jump of the influence line.
+        neglected_axles: indices of the axles left off because they stand where the line is not
+            adverse (cases that neglect relieving axles); their ``axle_loads`` are 0.
     """
 
     value: float
@@ -107,6 +109,7 @@ class Placement:
     section_axle: int | None
     limit_side: str | None
     axles_at_jump: tuple[int, ...]
+    neglected_axles: tuple[int, ...] = ()
 
 
 @dataclass(frozen=True)
@@ -285,6 +288,12 @@ def placement_at(
             footprint = (ends[0], ends[1])
     else:
         positions = loads = np.zeros(0)
+    neglected: tuple[int, ...] = ()
+    if case.neglect_relieving_axles and positions.size:
+        ordinates = prepared.line.values_at(positions, side=peak.side or "right")
+        adverse = ordinates > 0 if effect.sense == "max" else ordinates < 0
+        neglected = tuple(int(i) for i in np.flatnonzero(~adverse))
+        loads = np.where(adverse, loads, 0.0)
     lane_intensity = scale * (1 + case.lane_allowance) * case.lane
     lane_segments = (_cleared(prepared.adverse_segments(effect.sense), footprint)
                      if case.lane > 0 else ())
@@ -317,6 +326,7 @@ def placement_at(
         section_axle=section_axle,
         limit_side=peak.side,
         axles_at_jump=at_jump,
+        neglected_axles=neglected,
     )
 
 

@@ -21,8 +21,10 @@ A train is given by one of:
 Case keys: ``name``, ``train`` (a ``[[train]]`` name, or a ``[case.train]`` table), the train
 keys above inline, ``factor``, ``dynamic_allowance`` (on axles), ``uniform_dynamic_allowance``
 (on the train's uniform loads), ``lane``, ``lane_dynamic_allowance`` (on lane and knife-edge
-loads), ``lane_clear_of_axles``, ``knife_edge_for_moment``, ``knife_edge_for_shear``, ``scope``
-(list, such as ``["negative moment", "interior reaction"]``) and ``note``.
+loads), ``lane_clear_of_axles``, ``knife_edge_for_moment``, ``knife_edge_for_shear``,
+``neglect_relieving_axles`` (true: each axle acts only where the influence line is adverse, as
+AASHTO LRFD 3.6.1.3.1 neglects axles that do not contribute), ``scope`` (list, such as
+``["negative moment", "interior reaction"]``) and ``note``.
 
 Example:
     >>> model = parse_model('''
@@ -57,7 +59,7 @@ TRAIN_KEYS = ("loads", "spacings", "leading_uniform", "trailing_uniform", "items
               "headways")
 CASE_KEYS = ("name", "train", "factor", "dynamic_allowance", "uniform_dynamic_allowance", "lane",
              "lane_dynamic_allowance", "lane_clear_of_axles", "knife_edge_for_moment",
-             "knife_edge_for_shear", "scope", "note", *TRAIN_KEYS)
+             "knife_edge_for_shear", "neglect_relieving_axles", "scope", "note", *TRAIN_KEYS)
 VEHICLE_KEYS = tuple(dict.fromkeys((*MODEL_KEYS, *CASE_KEYS)))
 UNIFORM_KEYS = ("intensity", "length", "gap")
 ADJUSTMENT_KEYS = ("name", "value", "scales", "sets", "note")
@@ -114,6 +116,12 @@ class _Reader:
         if not isinstance(value, list):
             raise self.fail(where, f"expected a list of text, found {value!r}", 'give ["..."]')
         return tuple(self.text(v, f"{where}[{i + 1}]") for i, v in enumerate(value))
+
+    def flag(self, value: object, where: str) -> bool:
+        if not isinstance(value, bool):
+            raise self.fail(where, f"expected true or false, found {value!r}",
+                            "give true or false (no quotes)")
+        return value
 
     def number(self, value: object, where: str, *, positive: bool = False) -> float:
         if isinstance(value, bool) or not isinstance(value, int | float):
@@ -263,8 +271,11 @@ class _Reader:
                   for key, field in _CASE_FIELDS.items() if key in raw}
         scope = self.texts(raw.get("scope", []), f"{where} scope")
         note = self.text(raw.get("note", ""), f"{where} note")
+        neglect = self.flag(raw.get("neglect_relieving_axles", False),
+                            f"{where} neglect_relieving_axles")
         return self.built(where, lambda: LoadCase(
-            name, train, scope=Scope(scope), note=note, **values))  # type: ignore[arg-type]
+            name, train, scope=Scope(scope), note=note, neglect_relieving_axles=neglect,
+            **values))  # type: ignore[arg-type]
 
     def adjustment(self, value: object, where: str) -> Adjustment:
         raw = self.table(value, where, ADJUSTMENT_KEYS)
