@@ -35,7 +35,7 @@ import numpy as np
 from scipy.interpolate import PPoly
 
 from vehicles.batch_effects import Effects, LineGroup, best_effects_many
-from vehicles.effect import DIRECTIONS, PreparedInfluence, check_request, prepare
+from vehicles.effect import DIRECTIONS, PreparedInfluence, check_request
 from vehicles.errors import VehicleError
 from vehicles.extremes import Peak
 from vehicles.loadmodel import LoadModel
@@ -48,8 +48,9 @@ from vehicles.placement import (
     ranked,
     visits,
 )
+from vehicles.preparation import prepare_many
 
-CHUNK = 512
+CHUNK = 256
 """Lines handled together: bounds the memory of a batch (about 1 MB a line at most)."""
 
 
@@ -94,7 +95,7 @@ def govern_many(
     found: list[Governing | None] = [None] * count
     for start in range(0, count, CHUNK):
         chunk = range(start, min(start + CHUNK, count))
-        prepared = {i: prepare(influences[i]) for i in chunk}
+        prepared = dict(zip(chunk, prepare_many([influences[i] for i in chunk]), strict=True))
         groups: dict[tuple[str, bool, int], list[int]] = {}
         for i in chunk:
             degree = prepared[i].tables.shape[1]

@@ -47,13 +47,7 @@ from vehicles.extremes import Skeleton, skeleton
 from vehicles.loadmodel import RESPONSE_KINDS, SENSES, LoadCase
 from vehicles.piecewise import (
     Pieces,
-    antiderivative,
-    extended_table,
     horner,
-    pieces_from_ppoly,
-    roots_inside,
-    signed_part,
-    split_at_zeros,
 )
 from vehicles.ragged import TableBatch, shifted_sums
 from vehicles.train import Arrangement
@@ -140,38 +134,11 @@ def prepare(influence: PPoly | PreparedInfluence) -> PreparedInfluence:
     """
     if isinstance(influence, PreparedInfluence):
         return influence
-    line = split_at_zeros(pieces_from_ppoly(influence))
-    area = antiderivative(line)
-    positive = antiderivative(signed_part(line, 1.0))
-    negative = antiderivative(signed_part(line, -1.0))
-    totals = [float(horner(p.coeffs[:, -1:], p.widths[-1:])[0]) for p in (area, positive, negative)]
-    degree = area.coeffs.shape[0] - 1
-    tables = np.stack([
-        extended_table(line, degree, 0.0),
-        extended_table(area, degree, totals[0]),
-        extended_table(positive, degree, totals[1]),
-        extended_table(negative, degree, totals[2]),
-        extended_table(signed_part(line, 1.0), degree, 0.0),
-        extended_table(signed_part(line, -1.0), degree, 0.0),
-    ])
-    largest, smallest = _extreme_ordinates(line)
-    left = np.concatenate([[0.0], line.end_values()])
-    right = np.concatenate([line.coeffs[0], [0.0]])
-    scale = max(float(np.abs(left).max()), float(np.abs(right).max()), 1e-300)
-    jumps = line.breaks[np.abs(left - right) > 1e-9 * scale]
-    return PreparedInfluence(line, tables, totals[0], totals[1], totals[2], largest, smallest,
-                             jumps)
+    # the batched code with a batch of one, so that a line prepared alone or with others is
+    # the same to the last bit (imported here: vehicles.preparation builds on this module)
+    from vehicles.preparation import prepare_many
 
-
-def _extreme_ordinates(line: Pieces) -> tuple[Ordinate, Ordinate]:
-    derivative = Pieces(line.breaks, line.coeffs[1:] * np.arange(1, line.coeffs.shape[0])[:, None])
-    stationary = roots_inside(derivative) if line.coeffs.shape[0] > 2 else np.zeros(0)
-    xs = np.concatenate([line.breaks[:-1], line.breaks[1:], stationary])
-    values = np.concatenate([line.coeffs[0], line.end_values(),
-                             line.values_at(stationary, side="right")])
-    high, low = int(np.argmax(values)), int(np.argmin(values))
-    return Ordinate(float(values[high]), float(xs[high])), Ordinate(float(values[low]),
-                                                                      float(xs[low]))
+    return prepare_many([influence])[0]
 
 
 @dataclass(frozen=True)

@@ -103,24 +103,6 @@ def taylor_shift(coeffs: np.ndarray, h: np.ndarray) -> np.ndarray:
     return a
 
 
-def regridded(pieces: Pieces, breaks: np.ndarray) -> Pieces:
-    """The same function on finer breakpoints (a superset of ``pieces.breaks``)."""
-    n = pieces.coeffs.shape[1]
-    mids = 0.5 * (breaks[:-1] + breaks[1:])
-    parent = np.clip(np.searchsorted(pieces.breaks, mids, side="right") - 1, 0, n - 1)
-    shift = breaks[:-1] - pieces.breaks[parent]
-    return Pieces(breaks, taylor_shift(pieces.coeffs[:, parent], shift))
-
-
-def merged_breaks(points: np.ndarray, extent: float) -> np.ndarray:
-    """Sorted unique points with near-coincident ones (closer than a tolerance) merged."""
-    points = np.sort(points.ravel())
-    keep = np.empty(points.size, dtype=bool)
-    keep[:1] = True
-    keep[1:] = np.diff(points) > RELATIVE_BREAK_TOLERANCE * max(extent, 1.0)
-    return points[keep]
-
-
 def unit_roots(b: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Real roots in [0, 1] of the polynomials with ascending coefficients ``b`` (D+1, m).
 
@@ -192,31 +174,6 @@ def _polished(b: np.ndarray, v: np.ndarray) -> np.ndarray:
     return v
 
 
-def roots_inside(pieces: Pieces) -> np.ndarray:
-    """Chainages [length] of every real root strictly inside a piece, sorted."""
-    widths = pieces.widths
-    powers = widths[None, :] ** np.arange(pieces.coeffs.shape[0])[:, None]
-    column, v = unit_roots(pieces.coeffs * powers)
-    inside = (v > 0.0) & (v < 1.0)
-    return np.sort(pieces.breaks[column[inside]] + v[inside] * widths[column[inside]])
-
-
-def split_at_zeros(pieces: Pieces) -> Pieces:
-    """The same function with a breakpoint added at every zero crossing inside a piece."""
-    extent = float(pieces.breaks[-1] - pieces.breaks[0])
-    breaks = merged_breaks(np.concatenate([pieces.breaks, roots_inside(pieces)]), extent)
-    if breaks.size == pieces.breaks.size:
-        return pieces
-    return regridded(pieces, breaks)
-
-
-def signed_part(pieces: Pieces, sign: float) -> Pieces:
-    """The positive (``sign=1``) or negative (``sign=-1``) part of a function split at zeros."""
-    middle = horner(pieces.coeffs, 0.5 * pieces.widths)
-    keep = (sign * middle > 0)[None, :]
-    return Pieces(pieces.breaks, np.where(keep, pieces.coeffs, 0.0))
-
-
 def antiderivative(pieces: Pieces) -> Pieces:
     """The integral from breaks[0], one degree higher; continuous across breakpoints."""
     degree = pieces.coeffs.shape[0] - 1
@@ -225,18 +182,3 @@ def antiderivative(pieces: Pieces) -> Pieces:
     increments = horner(coeffs, pieces.widths)
     coeffs[0] = np.concatenate([[0.0], np.cumsum(increments)[:-1]])
     return Pieces(pieces.breaks, coeffs)
-
-
-def padded(coeffs: np.ndarray, degree: int) -> np.ndarray:
-    """Ascending coefficients raised to ``degree`` with zero high-order terms."""
-    extra = degree + 1 - coeffs.shape[0]
-    return np.concatenate([coeffs, np.zeros((extra, *coeffs.shape[1:]))]) if extra else coeffs
-
-
-def extended_table(pieces: Pieces, degree: int, after: float) -> np.ndarray:
-    """Coefficients (degree+1, n+2): zero before the first piece and ``after`` past the last."""
-    n = pieces.coeffs.shape[1]
-    table = np.zeros((degree + 1, n + 2))
-    table[:, 1 : n + 1] = padded(pieces.coeffs, degree)
-    table[0, n + 1] = after
-    return table

@@ -127,6 +127,15 @@ class RaggedSkeletons:
         return positions, values
 
 
+def powers(x: np.ndarray, count: int) -> np.ndarray:
+    """(count, ...) rows 1, x, x^2, ... by repeated multiplication: correctly rounded steps, so
+    the same for an element whatever the length of the array (``**`` need not be)."""
+    rows = [np.ones_like(x)]
+    for _ in range(count - 1):
+        rows.append(rows[-1] * x)
+    return np.stack(rows)
+
+
 def _segment_max(values: np.ndarray, offsets: np.ndarray) -> np.ndarray:
     return np.maximum.reduceat(values, offsets[:-1])
 
@@ -144,7 +153,7 @@ def skeletons(functions: Ragged, relative_tolerance: float = 1e-9) -> RaggedSkel
     if degree >= 2:
         # E'(u) in the normalised variable v = u / width: (q+1) a_{q+1} width^(q+1)
         q = np.arange(1, degree + 1)[:, None]
-        column, v = unit_roots(coeffs[1:] * q * widths[None, :] ** q)
+        column, v = unit_roots(coeffs[1:] * q * powers(widths, degree + 1)[1:])
         inside = (v > 0.0) & (v < 1.0)
         column, v = column[inside], v[inside]
     else:
@@ -172,7 +181,7 @@ class TableBatch:
         breaks: every function's breakpoints, concatenated [length].
         offsets: (functions+1,) where each function's breakpoints start.
         tables: (rows, degree+1, sum of pieces+2) extended coefficient tables (see
-            :func:`vehicles.piecewise.extended_table`), function after function.
+            :mod:`vehicles.preparation`), function after function.
         pads: constant stretch added before and after each effect function [length].
     """
 
