@@ -303,21 +303,28 @@ def _paired(front: RaggedSkeletons, rear: RaggedSkeletons, sense_sign: float, si
             low: float, high: float, top: np.ndarray, best_end: np.ndarray) -> np.ndarray:
     """For every line, the range value of the best feasible (front, rear) pair, or the better
     range end when no interior pair beats both ends."""
+    result = best_end.astype(float)
+    # no pair can beat the ends where the best front plus the best rear does not (rounding is
+    # monotonic, so the bound holds in floating point too): pair only the other lines
+    bound = (np.maximum.reduceat(sense_sign * front.values, front.offsets[:-1])
+             + np.maximum.reduceat(sense_sign * rear.values, rear.offsets[:-1]))
+    open_lines = np.flatnonzero(bound > top)
+    if open_lines.size == 0:
+        return result
     front_positions, front_values = front.padded(np.nan)
     rear_positions, rear_values = rear.padded(np.nan)
-    count, wide = front_values.shape
+    wide = front_values.shape[1]
     block = max(1, PAIR_BLOCK // max(wide * rear_values.shape[1], 1))
-    result = best_end.astype(float)
-    for start in range(0, count, block):
-        rows = slice(start, start + block)
+    for start in range(0, open_lines.size, block):
+        rows = open_lines[start : start + block]
         value = sense_sign * (front_values[rows, :, None] + rear_values[rows, None, :])
         chosen = sign * (rear_positions[rows, None, :] - front_positions[rows, :, None]) + low
         feasible = (chosen >= low) & (chosen <= high)
-        interior = np.where(feasible, value, -np.inf).reshape(value.shape[0], -1)
+        interior = np.where(feasible, value, -np.inf).reshape(rows.size, -1)
         best = np.argmax(interior, axis=1)
-        lines = np.arange(value.shape[0])
+        lines = np.arange(rows.size)
         winning = interior[lines, best]
-        take = feasible.reshape(value.shape[0], -1).any(axis=1) & (winning > top[rows])
-        picked = np.clip(chosen.reshape(value.shape[0], -1)[lines, best], low, high)
+        take = feasible.reshape(rows.size, -1).any(axis=1) & (winning > top[rows])
+        picked = np.clip(chosen.reshape(rows.size, -1)[lines, best], low, high)
         result[rows] = np.where(take, picked, result[rows])
     return result
