@@ -175,7 +175,7 @@ def envelope(
         block = lines[start : start + LIVE_BLOCK]
         lives = govern_many([line.ppoly for line in block], models,
                             kinds=[line.response.kind for line in block],
-                            interiors=[line.interior_support for line in block],
+                            interiors=[line.scope_interior for line in block],
                             sections=[line.section_chainage for line in block])
         for (section, _), line, live in zip(pairs[start : start + LIVE_BLOCK], block, lives,
                                             strict=True):

@@ -69,7 +69,7 @@ def governing(analysis: Analysis, response: Response, models: Sequence[LoadModel
     """The governing search for one response and the concurrent effects of others."""
     line, *others = analysis.lines([response, *concurrent_with])
     result = govern(line.ppoly, list(models), kind=response.kind,
-                    interior=line.interior_support, section=line.section_chainage, top=top)
+                    interior=line.scope_interior, section=line.section_chainage, top=top)
 
     def along(placement: Placement | None) -> tuple[Concurrent, ...]:
         if placement is None:

@@ -170,6 +170,19 @@ class InfluenceLine:
                 crossings.append(x)
         return np.unique(np.array(crossings, dtype=float))
 
+    @cached_property
+    def scope_interior(self) -> bool:
+        """Whether the response lies in the interior region a load case's scope may name: a
+        reaction at a support that is not a path end, or a moment where a uniform load on the
+        whole path hogs (its line's net area is negative), that is between the points of
+        contraflexure around an interior support."""
+        if self.response.kind == "reaction":
+            return self.interior_support
+        if self.response.kind == "moment":
+            positive, negative = self.areas()
+            return positive + negative < -NOISE * self.scale * self.length
+        return False
+
     def integral(self, start: float, end: float) -> float:
         """Exact area under the line between two chainages [ordinate * length] (zero off the
         path): the effect of a unit uniform load over that stretch."""

@@ -43,7 +43,7 @@ def test_sections_are_supports_both_sides_and_tenth_points() -> None:
 def test_every_value_equals_the_governing_search_there() -> None:
     for entry in RESULT.entries[::3]:
         line = ANALYSIS.line(entry.response)
-        expected = govern(line.ppoly, TRUCK, kind=entry.kind, interior=line.interior_support)
+        expected = govern(line.ppoly, TRUCK, kind=entry.kind, interior=line.scope_interior)
         assert entry.live.max is not None and expected.max is not None
         assert entry.live.max.value == pytest.approx(expected.max.value, rel=1e-12, abs=1e-12)
         assert entry.live_max == pytest.approx(expected.max.value * 0.6, rel=1e-12, abs=1e-12)

@@ -25,8 +25,9 @@ RESPONSE_KINDS = ("reaction", "shear", "moment", "axial", "deflection", "rotatio
 SENSES = ("max", "min")
 
 SCOPE_TOKENS = {
-    # token: (response kind, sense or None for both, interior supports only)
+    # token: (response kind, sense or None for both, interior region only)
     "negative moment": ("moment", "min", False),
+    "negative moment between contraflexure points": ("moment", "min", True),
     "positive moment": ("moment", "max", False),
     "interior reaction": ("reaction", None, True),
     **{kind: (kind, None, False) for kind in RESPONSE_KINDS},
@@ -37,9 +38,11 @@ SCOPE_TOKENS = {
 class Scope:
     """The responses a case applies to; empty means every response.
 
-    Tokens: "negative moment", "positive moment", "interior reaction" (a reaction at a support that
-    is not at an end of the path), or a response kind: reaction, shear, moment, axial, deflection,
-    rotation.
+    Tokens: "negative moment", "positive moment", "negative moment between contraflexure points"
+    (a moment at a section where a uniform load on every span hogs: between the points of
+    contraflexure around an interior support), "interior reaction" (a reaction at a support that
+    is not at an end of the path), or a response kind: reaction, shear, moment, axial,
+    deflection, rotation.
     """
 
     effects: tuple[str, ...] = ()
@@ -60,7 +63,10 @@ class Scope:
         Args:
             kind: a response kind from :data:`RESPONSE_KINDS`.
             sense: "max" or "min".
-            interior: whether a reaction is at a support that is not at an end of the path.
+            interior: for a reaction, whether its support is not at an end of the path; for a
+                moment, whether its section lies between the points of contraflexure of a
+                uniform load on every span (the caller decides: a negative area of the
+                moment's influence line).
         """
         if not self.effects:
             return True

@@ -69,9 +69,11 @@ def test_hl93_truck_pair_for_negative_moment() -> None:
     (headway,) = pair.train.ranges
     assert headway.low == 50.0
     assert pair.train.length([headway.low]) == 28.0 + 50.0 + 28.0
-    assert pair.scope == Scope(("negative moment", "interior reaction"))
-    assert pair.applies_to("moment", "min", interior=False)
-    assert not pair.applies_to("moment", "max", interior=False)
+    assert pair.scope == Scope(("negative moment between contraflexure points",
+                                "interior reaction"))
+    assert pair.applies_to("moment", "min", interior=True)
+    assert not pair.applies_to("moment", "min", interior=False)  # outside the hogging region
+    assert not pair.applies_to("moment", "max", interior=True)
     assert not pair.applies_to("reaction", "max", interior=False)
 
 
