@@ -1,4 +1,4 @@
-"""Piecewise polynomials as plain arrays: shifting and summing copies, splitting at zeros, roots.
+"""Piecewise polynomials as plain arrays: evaluation, Taylor shifts, integrals, roots in a piece.
 
 A :class:`Pieces` holds increasing breakpoints ``breaks`` (n+1,) and coefficients ``coeffs``
 (degree+1, n) in *ascending* powers of the local coordinate ``u = x - breaks[j]`` (scipy's
@@ -7,7 +7,9 @@ Piece j holds on ``breaks[j] <= x <= breaks[j+1]``; where neighbouring pieces di
 breakpoint the function jumps and both one-sided limits are meaningful. Units are those of the
 caller: ``x`` in [length], values in whatever the function measures.
 
-Everything here is vectorised over pieces (and over shifted copies): no loop over points.
+Everything here is vectorised over pieces: no loop over points. Shifted sums of many copies and
+the preparation of many lines at once live in :mod:`vehicles.ragged` and
+:mod:`vehicles.preparation`.
 
 Example:
     >>> from scipy.interpolate import PPoly
