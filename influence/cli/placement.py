@@ -21,6 +21,8 @@ from influence.modelfile import read_model
 from influence.output import render_csv, render_json, render_table
 from influence.responses import COMPONENTS, RESPONSE_KINDS, SIDES, Response
 from vehicles.errors import VehicleError
+from vehicles.loadmodel import LoadModel
+from vehicles.placement import govern
 from vehicles.sweep import sweep
 
 _COMPONENTS = sorted({c for cs in COMPONENTS.values() for c in cs})
@@ -128,4 +130,10 @@ def sweep_command(model_file: str, response: str, location: str, side: str,
         from influence.governing_plot import draw_governing
         from influence.plot import save
 
-        save(draw_governing(line, [], sweeps, model), plot_file)
+        # the trains drawn where the swept cases govern
+        chosen = LoadModel(models[0].name, models[0].title, models[0].units, tuple(cases))
+        best = govern(line.ppoly, chosen, kind=response, interior=line.scope_interior,
+                      section=line.section_chainage)
+        extreme = best.max if sense == "max" else best.min  # the sense the sweeps were set for
+        placements = [extreme] if extreme is not None else []
+        save(draw_governing(line, placements, sweeps, model), plot_file)
