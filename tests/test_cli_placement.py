@@ -44,10 +44,13 @@ def test_unknown_vehicle_lists_close_matches() -> None:
     assert code == 1 and "HL-93" in output and len(output.strip().splitlines()) == 1
 
 
-def test_sweep_table_and_bad_case() -> None:
+def test_sweep_table_and_bad_case(tmp_path: Path) -> None:
+    plot = tmp_path / "sweep.pdf"
     code, output = invoke("sweep", OVERPASS, "reaction", "--at", "A1", "--vehicle", "LM2",
-                          "--direction", "forward", "--step", "10", "--format", "csv")
+                          "--direction", "forward", "--step", "10", "--format", "csv",
+                          "--plot", str(plot))
     assert code == 0, output
+    assert plot.read_bytes()[:5] == b"%PDF-"
     rows = [line for line in output.splitlines() if not line.startswith("#")]
     assert rows[0].startswith("case,direction,lane for,gaps used [m],lead [m],effect [kN]")
     code, output = invoke("sweep", OVERPASS, "moment", "--at", "40", "--vehicle", "LM2",
