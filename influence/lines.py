@@ -229,28 +229,54 @@ class Analysis:
     def lines(self, responses: tuple[Response, ...] | list[Response]) -> list[InfluenceLine]:
         """Influence lines of many responses, from one multi-column solve."""
         extractions = resolve_many(self.structure, self.path, tuple(responses))
-        return [self._line(e) for e in extractions]
+        if not extractions:
+            return []
+        weights = np.stack([e.weights for e in extractions])
+        # every leg's polynomial for every line at once: in the member position a, and in
+        # chainage from the leg's start (the form a leg without the section keeps whole)
+        in_member = [weights[:, used] @ loads for used, loads, _ in self._leg_terms]
+        in_chainage = [base @ change for base, (_, _, change) in
+                       zip(in_member, self._leg_terms, strict=True)]
+        return [self._line(e, [b[i] for b in in_member], [c[i] for c in in_chainage])
+                for i, e in enumerate(extractions)]
 
     def line(self, response: Response) -> InfluenceLine:
         return self.lines((response,))[0]
 
-    def _line(self, extraction: Extraction) -> InfluenceLine:
-        breakpoints: list[float] = [0.0]
-        rows: list[np.ndarray] = []
-        h = extraction.weights
+    @cached_property
+    def _leg_terms(self) -> list[tuple[np.ndarray, np.ndarray, np.ndarray]]:
+        """Per leg: the unknowns its member's end displacements sit at, its equivalent nodal
+        loads (polynomials in a) there, and the matrix re-expressing a polynomial in a as one in
+        chainage from the leg's start (a = t, or a = L - t walked against the member)."""
+        terms = []
         for leg in self.path.legs:
             frame = self.structure.frames[leg.member]
             dofs = np.array(frame.dofs)
             used = dofs >= 0
-            base = h[dofs[used]] @ frame.equivalent_loads[used]
-            # the member's own part changes where the load passes the section
-            member_pieces: list[tuple[float, float, np.ndarray]]
-            if extraction.own_member == leg.member and extraction.own_rules is not None:
-                s = extraction.own_position
-                behind, ahead = extraction.own_rules
-                member_pieces = [(0.0, s, base + behind), (s, leg.length, base + ahead)]
-            else:
-                member_pieces = [(0.0, leg.length, base)]
+            offset, scale = (leg.length, -1.0) if leg.against_member else (0.0, 1.0)
+            change = np.array([substitute(unit, offset, scale) for unit in np.eye(TERMS)])
+            terms.append((dofs[used], frame.equivalent_loads[used], change))
+        return terms
+
+    def _line(self, extraction: Extraction, in_member: list[np.ndarray],
+              in_chainage: list[np.ndarray]) -> InfluenceLine:
+        breakpoints: list[float] = [0.0]
+        rows: list[np.ndarray] = []
+        section = extraction.section_chainage
+        tolerance = SNAP * self.path.total_length
+        for index, leg in enumerate(self.path.legs):
+            if extraction.own_member != leg.member or extraction.own_rules is None:
+                rows.append(in_chainage[index])
+                end = leg.end_chainage
+                if section is not None and abs(end - section) <= tolerance:
+                    end = section
+                breakpoints.append(end)
+                continue
+            # the member holding the section: its own part changes where the load passes it
+            base = in_member[index]
+            s = extraction.own_position
+            behind, ahead = extraction.own_rules
+            member_pieces = [(0.0, s, base + behind), (s, leg.length, base + ahead)]
             for lo, hi, poly in _in_travel_order(member_pieces, leg.against_member, leg.length):
                 if hi - lo <= 0:
                     continue
@@ -262,8 +288,7 @@ class Analysis:
                     row = substitute(poly, lo, 1.0)
                 rows.append(row)
                 end = start + (hi - lo)
-                section = extraction.section_chainage
-                if section is not None and abs(end - section) <= SNAP * self.path.total_length:
+                if section is not None and abs(end - section) <= tolerance:
                     end = section  # the section's own chainage, not a sum that differs by an ulp
                 breakpoints.append(end)
         edges = np.array(breakpoints)
