@@ -16,7 +16,6 @@ from __future__ import annotations
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, replace
 
-import numpy as np
 from scipy.optimize import minimize_scalar
 
 from influence.deadload import dead_load_effects
@@ -238,13 +237,3 @@ def governing_label(placement: Placement | None) -> str:
     if placement is None:
         return "-"
     return f"{placement.model}: {placement.case} ({placement.direction})"
-
-
-def as_arrays(entries: Sequence[EnvelopeEntry]) -> dict[str, np.ndarray]:
-    """Chainage, live max and min of entries on the path, for plots."""
-    on_path = [e for e in entries if e.section.chainage is not None]
-    return {
-        "chainage": np.array([e.section.chainage for e in on_path], dtype=float),
-        "max": np.array([e.live_max if e.live_max is not None else np.nan for e in on_path]),
-        "min": np.array([e.live_min if e.live_min is not None else np.nan for e in on_path]),
-    }

@@ -16,7 +16,7 @@ import io
 import json
 import os
 import tempfile
-from collections.abc import Callable, Sequence
+from collections.abc import Callable
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any
@@ -99,15 +99,3 @@ def write_atomic(path: str | Path, write: Callable[[Path], object]) -> None:
     except BaseException:
         Path(temporary).unlink(missing_ok=True)
         raise
-
-
-def write_text_atomic(path: str | Path, text: str) -> None:
-    write_atomic(path, lambda p: p.write_text(text, encoding="utf-8"))
-
-
-def column(name: str, unit: str) -> str:
-    return f"{name} [{unit}]"
-
-
-def join_numbers(values: Sequence[float]) -> str:
-    return ", ".join(f"{v:g}" for v in values)

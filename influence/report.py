@@ -20,13 +20,11 @@ from pathlib import Path
 from typing import Any
 
 from influence.conventions import CAUTION, SIGN_CONVENTIONS
-from influence.design import DesignBasis
 from influence.envelope import Envelope, EnvelopeEntry
 from influence.envelope_output import deflection_table, envelope_header, envelope_table
 from influence.lines import Analysis
 from influence.output import Table, render_csv, render_table
 from influence.plot import PALETTE, draw_line, draw_structure
-from influence.responses import Response
 from influence.summary import render_summary, summarise
 from vehicles.describe import details
 from vehicles.tables import model_text
@@ -250,10 +248,3 @@ def write_report(analysis: Analysis, envelope: Envelope, out: str | Path,
         tables=tuple(p for p in moved if p.suffix == ".csv"),
         pages=len(pages),
     )
-
-
-def key_line_response(entry: EnvelopeEntry) -> Response:
-    return entry.response
-
-
-__all__ = ["DesignBasis", "ReportFiles", "envelope_figure", "key_sections", "write_report"]

@@ -20,8 +20,6 @@ Example:
     [12.5, -5.0, 0.5, 0.0]
     >>> round(float(evaluate(bracket(5.0, 3), 2.0)), 12)   # (5 - 2)^3 / 6
     4.5
-    >>> step(2.0, 1.0), step(2.0, 3.0)    # H(x - a) at x = 2
-    (1.0, 0.0)
 """
 
 from __future__ import annotations
@@ -49,11 +47,6 @@ def bracket(x: float, power: int) -> np.ndarray:
         raise ValueError(f"bracket power {power} outside 0..{TERMS - 1}")
     coefficients = P.polypow([x, -1.0], power) / math.factorial(power)
     return pad(coefficients)
-
-
-def step(x: float, a: float) -> float:
-    """Heaviside step H(x - a) with the load at ``a`` counted as behind a section at ``x = a``."""
-    return 1.0 if a <= x else 0.0
 
 
 def pad(coefficients: np.ndarray) -> np.ndarray:

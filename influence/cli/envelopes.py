@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 import sys
-from collections.abc import Iterator
+from collections.abc import Callable, Iterator
 from contextlib import contextmanager
 from typing import Any
 
@@ -76,16 +76,27 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
     return model, result
 
 
+def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
+    """The vehicles, adjustments, responses and sections of an envelope run."""
+    for option in reversed((
+        click.option("--vehicle", "vehicles", multiple=True,
+                     help="Library load model name or vehicle file; repeat for several."),
+        click.option("--adjust", multiple=True, metavar="NAME=VALUE",
+                     help="Set a load model's adjustment, such as alpha=1.21 (repeatable)."),
+        click.option("--responses", "responses", multiple=True,
+                     type=click.Choice(ENVELOPE_CHOICES),
+                     help="Responses to envelope (repeatable)."),
+        click.option("--step", type=float, help="Section spacing along each span [length]."),
+        click.option("--per-span", type=int,
+                     help="Divisions of each span (default 10: tenth points)."),
+    )):
+        command = option(command)
+    return command
+
+
 @main.command("envelope")
 @click.argument("model_file", type=click.Path(dir_okay=False))
-@click.option("--vehicle", "vehicles", multiple=True,
-              help="Library load model name or vehicle file; repeat for several.")
-@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
-              help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
-@click.option("--responses", "responses", multiple=True,
-              type=click.Choice(ENVELOPE_CHOICES), help="Responses to envelope (repeatable).")
-@click.option("--step", type=float, help="Section spacing along each span [length].")
-@click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
+@envelope_options
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
@@ -119,16 +130,9 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
 
 @main.command("report")
 @click.argument("model_file", type=click.Path(dir_okay=False))
-@click.option("--vehicle", "vehicles", multiple=True,
-              help="Library load model name or vehicle file; repeat for several.")
 @click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
               help="Folder for report.pdf, figures/ and tables/.")
-@click.option("--adjust", multiple=True, metavar="NAME=VALUE",
-              help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
-@click.option("--responses", "responses", multiple=True,
-              type=click.Choice(ENVELOPE_CHOICES), help="Responses to envelope (repeatable).")
-@click.option("--step", type=float, help="Section spacing along each span [length].")
-@click.option("--per-span", type=int, help="Divisions of each span (default 10: tenth points).")
+@envelope_options
 @click.option("--quiet", is_flag=True, help="No progress bar.")
 def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str, ...],
                    out_dir: str,
