@@ -47,3 +47,41 @@ def test_truss_chord_by_the_method_of_sections() -> None:
     analysis = analyse_model(read_model(by_name("truss-rail-bridge")))
     line = analysis.line(Response("axial", "L3L4@3.0"))
     assert float(line.values([24.0])[0]) == pytest.approx(18 * 24 / 48 / 7, rel=1e-9)
+
+
+VEHICLE_FILES = sorted((Path(__file__).resolve().parent.parent / "examples" / "vehicles").glob(
+    "*.toml"))
+
+
+@pytest.mark.parametrize("path", VEHICLE_FILES, ids=lambda p: p.stem)
+def test_example_vehicles_read(path: Path) -> None:
+    from vehicles.catalog import load_model
+
+    model = load_model(path)
+    assert model.cases and model.cases[0].train is not None
+
+
+def test_crane_pair_on_a_simple_span_follows_the_two_load_rule() -> None:
+    # AISC Manual, moving loads, "two equal concentrated loads" (case number from memory;
+    # ../shared/REFERENCES.md 2.1): for a spacing a < 0.586 L the largest moment is
+    # (P/2L)(L - a/2)^2. Here on a 40 ft simple span, P = 31.5 kip x 1.25 impact, a = 11.5 ft.
+    from influence.beamform import simple_beam
+    from vehicles.catalog import load_model
+    from vehicles.placement import govern
+
+    crane = load_model(by_vehicle("crane-pair"))
+    analysis = analyse_model(simple_beam(40.0, units="kip-ft"))
+    best = 0.0
+    for section in np.linspace(14.0, 20.0, 49):  # every 0.125 ft around the peak
+        line = analysis.line(Response("moment", repr(float(section))))
+        found = govern(line.ppoly, crane, kind="moment").max
+        assert found is not None
+        best = max(best, found.value)
+    P, a, L = 31.5 * 1.25, 11.5, 40.0
+    expected = P / (2 * L) * (L - a / 2) ** 2
+    # the absolute maximum sits under a load at (L - a/2)/2 = 17.125 ft, one of the sections
+    assert best == pytest.approx(expected, rel=1e-9)
+
+
+def by_vehicle(name: str) -> Path:
+    return next(p for p in VEHICLE_FILES if p.stem == name)
