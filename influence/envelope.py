@@ -21,11 +21,13 @@ from scipy.optimize import minimize_scalar
 from influence.deadload import dead_load_effects
 from influence.design import LIVE_LOAD, Combination, DesignBasis
 from influence.lines import Analysis, InfluenceLine
+from influence.model import Model
 from influence.responses import Response
 from influence.sections import Section, Span, envelope_sections, spans
 from vehicles.batch import govern_many
 from vehicles.loadmodel import LoadModel
 from vehicles.placement import Governing, Placement, govern
+from vehicles.units import labels
 
 ENVELOPE_RESPONSES = ("moment", "shear", "reaction", "deflection")
 """Responses enveloped by default."""
@@ -123,16 +125,19 @@ class Envelope:
         return [e for e in self.entries if e.kind == kind]
 
 
-def section_responses(sections: Sequence[Section], kinds: Sequence[str]) -> list[
-        tuple[Section, Response]]:
-    """The (section, response) pairs of an envelope: reactions only where supports stand."""
+def section_responses(sections: Sequence[Section], kinds: Sequence[str],
+                      model: Model) -> list[tuple[Section, Response]]:
+    """The (section, response) pairs of an envelope: reactions only where supports stand, for
+    every direction they restrain (horizontal ones only in the general form: a girder under
+    vertical load has none), moment reactions labelled with their unit."""
     pairs = []
     for kind in kinds:
         for section in sections:
             if kind == "reaction":
                 if section.support and section.side == "right":
-                    pairs.append((replace(section, label=section.support),
-                                  Response("reaction", section.support)))
+                    pairs.extend(_reaction_pairs(section, section.support, model))
+                continue
+            if section.reaction_only:
                 continue
             if kind in ("moment", "deflection", "rotation"):
                 if section.side == "left":
@@ -140,6 +145,23 @@ def section_responses(sections: Sequence[Section], kinds: Sequence[str]) -> list
                 section = replace(section, label=section.label.removesuffix(" right"))
             pairs.append((section, Response(kind, section.location, section.side)))
     return pairs
+
+
+def _reaction_pairs(section: Section, support: str,
+                    model: Model) -> list[tuple[Section, Response]]:
+    restraint = model.node(support).support
+    found = []
+    for component, direction in (("vertical", "uy"), ("horizontal", "ux"), ("moment", "rz")):
+        if restraint.restraint(direction) == "free":
+            continue
+        if component == "horizontal" and model.form == "beam":
+            continue
+        label = support if component == "vertical" else f"{support} {component}"
+        if component == "moment":
+            label += f" [{labels(model.units).moment}]"
+        found.append((replace(section, label=label),
+                      Response("reaction", support, component=component)))
+    return found
 
 
 def envelope(
@@ -167,7 +189,7 @@ def envelope(
         settings = basis.sections
         sections = envelope_sections(analysis.model, analysis.path, per_span=settings.per_span,
                                      step=settings.step, extra=settings.extra)
-    pairs = section_responses(sections, kinds)
+    pairs = section_responses(sections, kinds, analysis.model)
     lines = analysis.lines([response for _, response in pairs])
     entries = []
     for start in range(0, len(lines), LIVE_BLOCK):

@@ -32,6 +32,7 @@ class Section:
         chainage: on the path [length], or None for a section off the path.
         span: number of the span it lies in (1, 2, ...), 0 off the path.
         support: the support node standing here, if any.
+        reaction_only: a support off the path: only its reactions are enveloped there.
     """
 
     label: str
@@ -40,6 +41,7 @@ class Section:
     chainage: float | None
     span: int
     support: str | None = None
+    reaction_only: bool = False
 
 
 @dataclass(frozen=True)
@@ -68,7 +70,8 @@ def spans(model: Model, path: PathGeometry) -> list[Span]:
 
 def envelope_sections(model: Model, path: PathGeometry, *, per_span: int = 10,
                       step: float | None = None, extra: tuple[str, ...] = ()) -> list[Section]:
-    """The sections of an envelope, in chainage order, then the extra ones."""
+    """The sections of an envelope, in chainage order, then supports off the path (for their
+    reactions) and the extra sections."""
     tolerance = CHAINAGE_TOLERANCE * max(path.total_length, 1.0)
     special: dict[float, str] = {}  # chainage -> node name: supports and hinges on the path
     for node_name, at in path.node_chainages.items():
@@ -102,14 +105,19 @@ def envelope_sections(model: Model, path: PathGeometry, *, per_span: int = 10,
                 support = name if name and model.node(name).support.is_support else None
                 found.append(Section(name or f"{chainage:.6g}", location, "right",
                                      float(chainage), span.number, support))
+    on_path = set(path.node_chainages)
+    for node in model.nodes:
+        if node.support.is_support and node.name not in on_path:
+            found.append(Section(node.name, node.name, "right", None, 0, node.name,
+                                 reaction_only=True))
     for location in extra:
         try:
-            on_path: float | None = float(location)
+            given: float | None = float(location)
         except ValueError:
-            on_path = None
-        number = next((s.number for s in spans(model, path) if on_path is not None
-                       and s.start <= on_path <= s.end), 0)
-        found.append(Section(location, location, "right", on_path, number))
+            given = None
+        number = next((s.number for s in spans(model, path) if given is not None
+                       and s.start <= given <= s.end), 0)
+        found.append(Section(location, location, "right", given, number))
     return found
 
 

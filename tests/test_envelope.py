@@ -12,6 +12,7 @@ from influence.design import Combination, DeadLoad, DesignBasis, LiveLoadSetting
 from influence.envelope import envelope
 from influence.errors import ModelError
 from influence.lines import analyse_model
+from influence.responses import Response
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.placement import govern
 from vehicles.train import Axle, Train
@@ -93,3 +94,19 @@ def test_design_basis_errors(tmp_path: Path, extra: str, message: str) -> None:
                     + extra)
     with pytest.raises(ModelError, match=message):
         read_design(path)
+
+
+def test_frame_supports_off_the_path_envelope_every_reaction_component() -> None:
+    from tests.frames import portal_frame
+
+    analysis = analyse_model(portal_frame("fixed"))
+    result = envelope(analysis, [TRUCK], DesignBasis(), kinds=("reaction", "moment"))
+    labels = [e.section.label for e in result.of("reaction")]
+    assert labels == ["WB", "WB horizontal", "WB moment [kN-m]", "EB", "EB horizontal",
+                      "EB moment [kN-m]"]
+    vertical = analysis.line(Response("reaction", "WB"))
+    expected = govern(vertical.ppoly, TRUCK, kind="reaction").max
+    assert expected is not None
+    assert result.of("reaction")[0].live.max == expected
+    # no moment entries at the bases: they are off the path
+    assert all(e.section.chainage is not None for e in result.of("moment"))

@@ -69,7 +69,7 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
     kinds = responses or ENVELOPE_RESPONSES
     from influence.envelope import section_responses
 
-    total = len(section_responses(sections, kinds))
+    total = len(section_responses(sections, kinds, model))
     with progress_bar(total, "envelopes", quiet) as bar:
         result = envelope(analysis, models, basis, kinds=kinds, sections=sections,
                           progress=bar.update, notes=notes)
