@@ -156,19 +156,34 @@ class InfluenceLine:
                         Extreme(float(v[low]), float(x[low])))
 
     def zero_crossings(self) -> np.ndarray:
-        """Chainages where the line changes sign [length] (roots and sign changes at jumps)."""
-        crossings = []
-        scale = max(np.abs(self.coefficients[:, 0]).max(), 1e-300)
+        """Chainages where the line changes sign [length]: roots inside pieces, and breakpoints
+        where it jumps across zero or passes through zero from one piece to the next.
+
+        Example (moment over the middle support of two 10 m spans: negative throughout, so
+        no crossing; the midspan moment of the first span changes sign at the middle support):
+            >>> from influence.beamform import continuous_beam
+            >>> beam = continuous_beam([10.0, 10.0], 1.0, ["pinned", "roller", "roller"])
+            >>> influence_line(beam, Response("moment", "S2")).zero_crossings().tolist()
+            []
+            >>> influence_line(beam, Response("moment", "5")).zero_crossings().tolist()
+            [10.0]
+        """
+        points = [self.breakpoints]
         for start, width, row in zip(self.breakpoints, np.diff(self.breakpoints),
                                      self.coefficients, strict=False):
-            for t in _real_roots_in(row, width):
-                if 1e-12 * width < t < width * (1 - 1e-12):
-                    crossings.append(start + t)
-        left, right = self.limits()
-        for x, lo, hi in zip(self.breakpoints, left, right, strict=True):
-            if lo * hi < 0 or (abs(lo) > 1e-12 * scale and abs(hi) > 1e-12 * scale and lo * hi < 0):
-                crossings.append(x)
-        return np.unique(np.array(crossings, dtype=float))
+            points.append(start + np.array(_real_roots_in(row, width)))
+        edges = np.unique(np.concatenate(points))
+        middles = (edges[:-1] + edges[1:]) / 2
+        signs = np.sign(self.values(middles))  # round-off below NOISE already reads as zero
+        crossings = []
+        previous = 0.0
+        for where, sign in zip(edges[:-1], signs, strict=True):
+            if sign == 0:
+                continue
+            if previous and sign != previous:
+                crossings.append(float(where))
+            previous = sign
+        return np.array(crossings, dtype=float)
 
     @cached_property
     def scope_interior(self) -> bool:
