@@ -25,6 +25,7 @@ These tables sit beside the structure in the same TOML file::
     vehicles = ["HL-93"]        # default load models for envelopes and reports
     adjust = { alpha = 1.21 }   # inputs of those load models (see `influence vehicles NAME`)
     deflection_limit = 800      # live-load deflection limit: span / 800
+    deflection_vehicles = ["HL-93 deflection"]   # load models of that check, if not vehicles
 
     [sections]
     per_span = 10               # tenth points (common practice for girders)
@@ -50,7 +51,8 @@ LIVE_LOAD = "LL"
 
 LOAD_KEYS = {"name", "load", "uniform", "members", "from", "to", "point", "at"}
 COMBINATION_KEYS = {"name", "factors"}
-LIVE_KEYS = {"distribution", "multiple_presence", "vehicles", "deflection_limit", "adjust"}
+LIVE_KEYS = {"distribution", "multiple_presence", "vehicles", "deflection_limit", "adjust",
+             "deflection_vehicles"}
 SECTION_KEYS = {"per_span", "step", "extra"}
 
 
@@ -98,6 +100,7 @@ class LiveLoadSettings:
     multiple_presence: float = 1.0
     vehicles: tuple[str, ...] = ()
     deflection_limit: float | None = None  # N in span / N
+    deflection_vehicles: tuple[str, ...] = ()  # load models of the deflection check, if others
     adjust: dict[str, float] = field(default_factory=dict)  # load-model adjustments by name
 
     @property
@@ -160,6 +163,7 @@ def design_from_document(document: dict[str, Any], model: Model, source: str = "
         multiple_presence=_positive(live_table.get("multiple_presence", 1.0),
                                     "live_load.multiple_presence", source),
         vehicles=tuple(str(v) for v in live_table.get("vehicles", [])),
+        deflection_vehicles=tuple(str(v) for v in live_table.get("deflection_vehicles", [])),
         deflection_limit=None if limit is None else _positive(
             limit, "live_load.deflection_limit", source),
         adjust={str(k): read_number(v, f"live_load.adjust.{k}", source) for k, v in

@@ -16,6 +16,7 @@ from __future__ import annotations
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, replace
 
+import numpy as np
 from scipy.optimize import minimize_scalar
 
 from influence.deadload import dead_load_effects
@@ -173,6 +174,7 @@ def envelope(
     sections: Sequence[Section] | None = None,
     progress: Progress | None = None,
     notes: Sequence[str] = (),
+    deflection_models: Sequence[LoadModel] = (),
 ) -> Envelope:
     """Envelopes of the responses at the sections, for the load models and the dead loads.
 
@@ -184,6 +186,7 @@ def envelope(
         sections: where; default from the basis (tenth points, supports, hinges, extras).
         progress: called with the number of entries finished since the last call.
         notes: remarks carried to the outputs (such as unit conversions of load models).
+        deflection_models: load models for the deflection check, if not the envelope's.
     """
     if sections is None:
         settings = basis.sections
@@ -205,7 +208,10 @@ def envelope(
             progress(len(block))
     checks: tuple[DeflectionCheck, ...] = ()
     if basis.live.deflection_limit and "deflection" in kinds:
-        checks = tuple(deflection_checks(analysis, models, basis, entries))
+        chainages = [e.section.chainage for e in entries
+                     if e.kind == "deflection" and e.section.chainage is not None]
+        checks = tuple(deflection_checks(analysis, deflection_models or models, basis,
+                                         chainages))
     return Envelope(tuple(entries), tuple(models), basis, analysis.model.units, checks,
                     tuple(notes))
 
@@ -218,30 +224,35 @@ def _entry(analysis: Analysis, section: Section, line: InfluenceLine, live: Gove
 
 
 def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: DesignBasis,
-                      entries: Sequence[EnvelopeEntry]) -> list[DeflectionCheck]:
-    """Largest live deflection of each span against span / N, refined between the envelope
-    sections around the largest one (a bounded search; exact deflection at every trial)."""
+                      chainages: Sequence[float]) -> list[DeflectionCheck]:
+    """Largest live deflection of each span against span / N.
+
+    The load models may differ from the envelope's (a code's deflection loading). Every section
+    chainage given is searched exactly; around the largest of each span a bounded search between
+    its neighbours refines the section (bracket :data:`DEFLECTION_REFINEMENT` of the span; the
+    deflection at every trial section is exact).
+    """
     assert basis.live.deflection_limit
     found = []
-    deflections = [e for e in entries if e.kind == "deflection" and e.section.chainage is not None]
     for span in spans(analysis.model, analysis.path):
-        inside = [e for e in deflections if e.section.span == span.number]
+        inside = sorted(c for c in chainages if span.start <= c <= span.end)
         if not inside:
             continue
-        best = max(inside, key=lambda e: e.live_max or 0.0)
-        chainages = sorted(e.section.chainage for e in inside if e.section.chainage is not None)
-        at = best.section.chainage
-        assert at is not None
-        index = chainages.index(at)
-        lo = chainages[max(index - 1, 0)]
-        hi = chainages[min(index + 1, len(chainages) - 1)]
+        lines = analysis.lines([Response("deflection", repr(float(c))) for c in inside])
+        results = govern_many([line.ppoly for line in lines], models,
+                              kinds=["deflection"] * len(lines),
+                              interiors=[False] * len(lines),
+                              sections=[line.section_chainage for line in lines])
+        values = [r.max.value if r.max is not None else 0.0 for r in results]
+        index = int(np.argmax(values))
+        at, value, placement = inside[index], values[index], results[index].max
+        lo, hi = inside[max(index - 1, 0)], inside[min(index + 1, len(inside) - 1)]
 
         def negative_deflection(chainage: float) -> float:
             line = analysis.line(Response("deflection", repr(float(chainage))))
             result = govern(line.ppoly, models, kind="deflection")
             return -(result.max.value if result.max else 0.0)
 
-        value, placement = (best.live_max or 0.0) / basis.live.scale, best.live.max
         if hi > lo:
             search = minimize_scalar(negative_deflection, bounds=(lo, hi), method="bounded",
                                      options={"xatol": DEFLECTION_REFINEMENT * span.length})

@@ -59,6 +59,12 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
                  adjust: tuple[str, ...] = ()) -> tuple[Model, Envelope]:
     model, basis = read_design(model_file)
     models, notes = resolve_vehicles(vehicles, model, basis, parse_adjustments(adjust))
+    deflection_models: list[LoadModel] = []
+    if basis.live.deflection_vehicles:
+        deflection_models, more = vehicles_for(basis.live.deflection_vehicles, model.units,
+                                               basis.live.adjust)
+        notes += more + ["Deflection check with " + ", ".join(
+            m.name for m in deflection_models) + "."]
     analysis = analyse_model(model)
     settings = basis.sections
     if step is not None or per_span is not None:
@@ -72,7 +78,8 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
     total = len(section_responses(sections, kinds, model))
     with progress_bar(total, "envelopes", quiet) as bar:
         result = envelope(analysis, models, basis, kinds=kinds, sections=sections,
-                          progress=bar.update, notes=notes)
+                          progress=bar.update, notes=notes,
+                          deflection_models=deflection_models)
     return model, result
 
 
