@@ -11,10 +11,13 @@ Example:
 """
 
 from vehicles.adjust import adjusted
+from vehicles.batch import govern_many
 from vehicles.catalog import get_model, library_names, load_model
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
 from vehicles.modelwriter import write_model
+from vehicles.placement import Governing, Placement, govern
+from vehicles.sweep import sweep
 from vehicles.train import Arrangement, Axle, Patch, Train
 from vehicles.units import model_in
 from vehicles.vehiclefile import read_model
@@ -23,17 +26,22 @@ __all__ = [
     "Adjustment",
     "Arrangement",
     "Axle",
+    "Governing",
     "LoadCase",
     "LoadModel",
     "Patch",
+    "Placement",
     "Scope",
     "Train",
     "VehicleError",
     "adjusted",
     "get_model",
+    "govern",
+    "govern_many",
     "library_names",
     "load_model",
     "model_in",
     "read_model",
+    "sweep",
     "write_model",
 ]
