@@ -13,7 +13,7 @@ import os
 import shutil
 import tempfile
 import textwrap
-from collections.abc import Sequence
+from collections.abc import Iterator, Sequence
 from dataclasses import dataclass
 from datetime import date
 from pathlib import Path
@@ -53,7 +53,7 @@ def _pyplot() -> Any:
     return plt
 
 
-def _text_pages(title: str, text: str, size: float = 7.0, wrap: bool = True) -> list[Any]:
+def _text_pages(title: str, text: str, size: float = 7.0, wrap: bool = True) -> Iterator[Any]:
     """Figures holding monospaced text, split across pages; long lines wrap unless ``wrap`` is
     off, when the font shrinks to fit the widest line instead."""
     plt = _pyplot()
@@ -65,27 +65,23 @@ def _text_pages(title: str, text: str, size: float = 7.0, wrap: bool = True) -> 
     if not wrap:
         # a monospace character is about 0.6 of the font size wide; 11 in of usable width
         size = min(size, 11.0 * 72 / (0.6 * widest))
-    figures = []
     for start in range(0, max(len(lines), 1), TEXT_LINES_PER_PAGE):
         figure = plt.figure(figsize=PAGE)
         figure.text(0.04, 0.96, title, fontsize=12, weight="bold", va="top",
                     color=PALETTE["line"])
         figure.text(0.04, 0.92, "\n".join(lines[start:start + TEXT_LINES_PER_PAGE]),
                     fontsize=size, family="monospace", va="top")
-        figures.append(figure)
-    return figures
+        yield figure
 
 
-def _table_pages(title: str, table: Table) -> list[Any]:
-    figures = []
+def _table_pages(title: str, table: Table) -> Iterator[Any]:
     for start in range(0, max(len(table.rows), 1), ROWS_PER_PAGE):
         part = Table([], table.columns, table.rows[start:start + ROWS_PER_PAGE])
         suffix = f" ({start // ROWS_PER_PAGE + 1})" if len(table.rows) > ROWS_PER_PAGE else ""
-        figures.extend(_text_pages(title + suffix, render_table(part), size=7.0, wrap=False))
-    return figures
+        yield from _text_pages(title + suffix, render_table(part), size=7.0, wrap=False)
 
 
-def _title_page(analysis: Analysis, envelope: Envelope) -> Any:
+def _title_page(analysis: Analysis, envelope: Envelope) -> Iterator[Any]:
     model = analysis.model
     summary = render_summary(summarise(model))
     header = "\n".join([
@@ -123,24 +119,24 @@ def key_sections(envelope: Envelope) -> list[EnvelopeEntry]:
 
 
 def report_figures(analysis: Analysis, envelope: Envelope,
-                   kinds: Sequence[str]) -> list[tuple[str, Any]]:
-    """(name, figure) of every page, in order."""
+                   kinds: Sequence[str]) -> Iterator[tuple[str, Any]]:
+    """(name, figure) of every page, in order, made one at a time so that each can be saved
+    and closed before the next is drawn."""
     plt = _pyplot()
     model = analysis.model
-    pages: list[tuple[str, Any]] = []
     for index, figure in enumerate(_title_page(analysis, envelope)):
-        pages.append((f"01-title-{index + 1}", figure))
+        yield f"01-title-{index + 1}", figure
 
     figure, ax = plt.subplots(figsize=PAGE, layout="constrained")
     draw_structure(model, ax=ax)
-    pages.append(("02-structure", figure))
+    yield "02-structure", figure
 
     from vehicles.plot import plot_train
 
     for number, load_model in enumerate(envelope.models, start=1):
         text = model_text(details(load_model))
         for index, page in enumerate(_text_pages(f"Load model: {load_model.name}", text)):
-            pages.append((f"03-load-model-{number}-{index + 1}", page))
+            yield f"03-load-model-{number}-{index + 1}", page
         trains = [case for case in load_model.cases if case.train is not None]
         if trains:
             figure, axes = plt.subplots(len(trains), 1, figsize=PAGE, layout="constrained",
@@ -149,7 +145,7 @@ def report_figures(analysis: Analysis, envelope: Envelope,
                 assert case.train is not None
                 plot_train(case.train, units=load_model.units, ax=ax)
                 ax.set_title(f"{load_model.name}: {case.name}", fontsize=9)
-            pages.append((f"03-load-model-{number}-trains", figure))
+            yield f"03-load-model-{number}-trains", figure
 
     keys = key_sections(envelope)
     for start in range(0, len(keys), 2):
@@ -165,7 +161,7 @@ def report_figures(analysis: Analysis, envelope: Envelope,
                          "placements marked)", fontsize=9)
         for ax in axes[len(keys[start:start + 2]):, 0]:
             ax.axis("off")
-        pages.append((f"04-influence-lines-{start // 2 + 1}", figure))
+        yield f"04-influence-lines-{start // 2 + 1}", figure
 
     from influence.envelope_plot import draw_envelope
 
@@ -173,20 +169,19 @@ def report_figures(analysis: Analysis, envelope: Envelope,
         if envelope.of(kind):
             figure, ax = plt.subplots(figsize=PAGE, layout="constrained")
             draw_envelope(envelope, kind, ax=ax, title=f"{model.title}: envelope of {kind}")
-            pages.append((f"05-envelope-{kind}", figure))
+            yield f"05-envelope-{kind}", figure
     for kind in kinds:
         if envelope.of(kind):
             table = envelope_table(envelope, kind, model.title, compact=True)
             for index, page in enumerate(_table_pages(
                     f"Envelope and combinations: {kind}", table)):
-                pages.append((f"06-table-{kind}-{index + 1}", page))
+                yield f"06-table-{kind}-{index + 1}", page
     if envelope.deflection_checks:
         limit = envelope.basis.live.deflection_limit
         table = deflection_table(envelope, model.title)
         for index, page in enumerate(_table_pages(
                 f"Live-load deflection check (limit span/{limit:g})", table)):
-            pages.append((f"07-deflection-{index + 1}", page))
-    return pages
+            yield f"07-deflection-{index + 1}", page
 
 
 def envelope_figure(envelope: Envelope, kinds: Sequence[str], title: str) -> Any:
@@ -214,12 +209,13 @@ def write_report(analysis: Analysis, envelope: Envelope, out: str | Path,
     try:
         (work / "figures").mkdir()
         (work / "tables").mkdir()
-        pages = report_figures(analysis, envelope, kinds)
+        pages = 0
         with PdfPages(work / "report.pdf") as pdf:
             info = pdf.infodict()
             info["Title"] = analysis.model.title
             info["Subject"] = "Influence lines and envelopes. " + CAUTION
-            for name, figure in pages:
+            for name, figure in report_figures(analysis, envelope, kinds):
+                pages += 1
                 pdf.savefig(figure)
                 if not name.startswith(("01-", "03-load-model", "06-", "07-")) or \
                         name.endswith("trains"):
@@ -246,5 +242,5 @@ def write_report(analysis: Analysis, envelope: Envelope, out: str | Path,
         pdf=target / "report.pdf",
         figures=tuple(p for p in moved if p.suffix == ".png"),
         tables=tuple(p for p in moved if p.suffix == ".csv"),
-        pages=len(pages),
+        pages=pages,
     )
