@@ -15,6 +15,7 @@ from __future__ import annotations
 
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, replace
+from functools import partial
 
 import numpy as np
 from scipy.optimize import minimize_scalar
@@ -248,21 +249,27 @@ def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: De
         at, value, placement = inside[index], values[index], results[index].max
         lo, hi = inside[max(index - 1, 0)], inside[min(index + 1, len(inside) - 1)]
 
-        def negative_deflection(chainage: float) -> float:
-            line = analysis.line(Response("deflection", repr(float(chainage))))
-            result = govern(line.ppoly, models, kind="deflection")
-            return -(result.max.value if result.max else 0.0)
-
+        trials: dict[float, Placement | None] = {}  # every trial's placement, by chainage
         if hi > lo:
-            search = minimize_scalar(negative_deflection, bounds=(lo, hi), method="bounded",
+            objective = partial(_negative_deflection, analysis=analysis, models=models,
+                                trials=trials)
+            search = minimize_scalar(objective, bounds=(lo, hi), method="bounded",
                                      options={"xatol": DEFLECTION_REFINEMENT * span.length})
             if -search.fun > value:
                 at, value = float(search.x), float(-search.fun)
-                line = analysis.line(Response("deflection", repr(at)))
-                placement = govern(line.ppoly, models, kind="deflection").max
+                placement = trials[at]
         limit = span.length / basis.live.deflection_limit
         found.append(DeflectionCheck(span, value * basis.live.scale, at, placement, limit))
     return found
+
+
+def _negative_deflection(chainage: float, *, analysis: Analysis, models: Sequence[LoadModel],
+                         trials: dict[float, Placement | None]) -> float:
+    """Minus the largest live deflection at a section (for a minimiser), keeping its placement."""
+    line = analysis.line(Response("deflection", repr(float(chainage))))
+    placement = govern(line.ppoly, models, kind="deflection").max
+    trials[float(chainage)] = placement
+    return -(placement.value if placement else 0.0)
 
 
 def governing_label(placement: Placement | None) -> str:

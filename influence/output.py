@@ -1,4 +1,4 @@
-"""Plain text tables, CSV and JSON, and writing files without leaving half-written ones.
+"""Plain text tables, CSV and JSON (files are written whole by :mod:`vehicles.atomic`).
 
 Example:
     >>> print(render_table(Table(["Demo"], ("x [m]", "y [-]"), [(0.0, 1.0), (2.5, -0.25)])))
@@ -14,11 +14,7 @@ from __future__ import annotations
 import csv
 import io
 import json
-import os
-import tempfile
-from collections.abc import Callable
 from dataclasses import dataclass, field
-from pathlib import Path
 from typing import Any
 
 import numpy as np
@@ -81,21 +77,3 @@ def to_jsonable(value: Any) -> Any:
 
 def render_json(document: dict[str, Any]) -> str:
     return json.dumps(to_jsonable(document), indent=2)
-
-
-def write_atomic(path: str | Path, write: Callable[[Path], object]) -> None:
-    """Call ``write`` on a temporary file beside ``path``, then rename it into place.
-
-    A failure leaves no file (and no half-written file) behind.
-    """
-    target = Path(path)
-    target.parent.mkdir(parents=True, exist_ok=True)
-    handle, temporary = tempfile.mkstemp(prefix=f".{target.stem}-", suffix=target.suffix,
-                                         dir=target.parent)
-    os.close(handle)
-    try:
-        write(Path(temporary))
-        os.replace(temporary, target)
-    except BaseException:
-        Path(temporary).unlink(missing_ok=True)
-        raise

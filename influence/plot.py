@@ -15,8 +15,8 @@ import numpy as np
 from influence.conventions import ordinate_unit
 from influence.lines import InfluenceLine
 from influence.model import Model
-from influence.output import write_atomic
 from influence.path import trace
+from vehicles.atomic import written_whole
 from vehicles.units import labels
 
 if TYPE_CHECKING:
@@ -63,7 +63,7 @@ def save(ax: Axes, path: str | Path) -> None:
             item="--plot", fix="end the name in .png, .svg or .pdf",
         )
     figure: Any = ax.get_figure()
-    write_atomic(path, lambda p: figure.savefig(p, dpi=150, format=suffix[1:]))
+    written_whole(path, lambda name: figure.savefig(name, dpi=150, format=suffix[1:]))
     _pyplot().close(figure)
 
 

@@ -206,15 +206,20 @@ def _node_name(structure: Structure, path: PathGeometry, location: str) -> str |
         return location
     chainage = _as_chainage(location)
     if chainage is None:
-        raise LocationError(
-            f"{location!r} is not a chainage, a node or MEMBER@DISTANCE", source=model.source,
-            item="location", fix="names are: " + ", ".join(n.name for n in model.nodes[:12]),
-        )
+        raise _unknown_location(structure, location)
     tolerance = CHAINAGE_TOLERANCE * max(path.total_length, 1.0)
     for name, at in path.node_chainages.items():
         if abs(at - chainage) <= tolerance:
             return name
     return None
+
+
+def _unknown_location(structure: Structure, location: str) -> LocationError:
+    model = structure.model
+    return LocationError(
+        f"{location!r} is not a chainage, a node or MEMBER@DISTANCE", source=model.source,
+        item="location", fix="names are: " + ", ".join(n.name for n in model.nodes[:12]),
+    )
 
 
 def _node_for_support(structure: Structure, path: PathGeometry, response: Response) -> str:
@@ -268,7 +273,6 @@ def _section(structure: Structure, path: PathGeometry,
                     item=location, fix="give the section as MEMBER@DISTANCE",
                 )
         else:
-            _node_name(structure, path, location)  # raises the unknown-name error
-            raise AssertionError("unreachable")
+            raise _unknown_location(structure, location)
     leg_index, position = path.locate(chainage, response.side)
     return path.legs[leg_index].member, position, chainage

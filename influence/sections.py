@@ -80,7 +80,8 @@ def envelope_sections(model: Model, path: PathGeometry, *, per_span: int = 10,
                 model, node_name):
             special[at] = node_name
     found: list[Section] = []
-    for span in spans(model, path):
+    stretches = spans(model, path)
+    for span in stretches:
         count = max(int(np.ceil(span.length / step - 1e-9)), 1) if step else per_span
         points = span.start + span.length * np.arange(count + 1) / count
         points = np.unique(np.concatenate([points, [c for c in special
@@ -115,7 +116,7 @@ def envelope_sections(model: Model, path: PathGeometry, *, per_span: int = 10,
             given: float | None = float(location)
         except ValueError:
             given = None
-        number = next((s.number for s in spans(model, path) if given is not None
+        number = next((s.number for s in stretches if given is not None
                        and s.start <= given <= s.end), 0)
         found.append(Section(location, location, "right", given, number))
     return found

@@ -16,7 +16,7 @@ from typing import Any
 import numpy as np
 
 from influence.conventions import header_lines, ordinate_unit
-from influence.lines import InfluenceLine
+from influence.lines import NOISE, InfluenceLine
 from influence.output import Table
 from vehicles.units import labels
 
@@ -31,7 +31,7 @@ def positions(line: InfluenceLine, step: float | None = None) -> np.ndarray:
     start, end = float(line.breakpoints[0]), float(line.breakpoints[-1])
     grid = start + step * np.arange(int(np.floor((end - start) / step + 1e-9)) + 1)
     left, right = line.limits()
-    jumps = line.breakpoints[~np.isclose(left, right, rtol=0, atol=1e-12)]
+    jumps = line.breakpoints[np.abs(left - right) > NOISE * line.scale]
     jumps = jumps[(jumps > start) & (jumps < end)]
     points = np.unique(np.concatenate([grid, line.breakpoints, [end]]))
     return np.sort(np.concatenate([points, jumps]))

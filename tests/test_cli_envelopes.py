@@ -7,17 +7,10 @@ import json
 import re
 from pathlib import Path
 
-from click.testing import CliRunner
-
-from influence.cli import main
+from tests.cli import invoke
 
 EXAMPLES = Path(__file__).resolve().parent.parent / "examples"
 OVERPASS = str(EXAMPLES / "overpass.toml")
-
-
-def invoke(*args: str) -> tuple[int, str]:
-    result = CliRunner().invoke(main, list(args))
-    return result.exit_code, result.output
 
 
 def pdf_pages(path: Path) -> int:

@@ -5,16 +5,9 @@ from __future__ import annotations
 import json
 from pathlib import Path
 
-from click.testing import CliRunner
-
-from influence.cli import main
+from tests.cli import invoke
 
 EXAMPLES = Path(__file__).resolve().parent.parent / "examples"
-
-
-def invoke(*args: str) -> tuple[int, str]:
-    result = CliRunner().invoke(main, list(args))
-    return result.exit_code, result.output
 
 
 def test_check_summarises_the_overpass() -> None:

@@ -6,16 +6,10 @@ import json
 from pathlib import Path
 
 import pytest
-from click.testing import CliRunner
 
-from influence.cli import main
+from tests.cli import invoke
 
 OVERPASS = str(Path(__file__).resolve().parent.parent / "examples" / "overpass.toml")
-
-
-def invoke(*args: str) -> tuple[int, str]:
-    result = CliRunner().invoke(main, list(args))
-    return result.exit_code, result.output
 
 
 def test_govern_json_carries_the_documented_fields(tmp_path: Path) -> None:

@@ -5,12 +5,11 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from click.testing import CliRunner
 
-from influence.cli import main
 from influence.errors import MechanismError, ModelError
 from influence.lines import analyse_model
 from influence.modelfile import read_model
+from tests.cli import invoke
 
 GOOD = """
 title = "test girder"
@@ -26,11 +25,6 @@ def write(tmp_path: Path, text: str, name: str = "model.toml") -> Path:
     path = tmp_path / name
     path.write_text(text)
     return path
-
-
-def run(*args: str) -> tuple[int, str]:
-    result = CliRunner().invoke(main, list(args))
-    return result.exit_code, result.output
 
 
 def test_beam_form_reads(tmp_path: Path) -> None:
@@ -64,7 +58,7 @@ def test_bad_inputs_give_one_line(tmp_path: Path, change: tuple[str, str], expec
     with pytest.raises(ModelError) as caught:
         read_model(path)
     assert expected in str(caught.value) and str(path) in str(caught.value)
-    code, output = run("check", str(path))
+    code, output = invoke("check", str(path))
     assert code == 1
     lines = output.strip().splitlines()
     assert len(lines) == 1 and lines[0].startswith("error:") and "Traceback" not in output
@@ -82,20 +76,20 @@ def test_mechanism_names_the_part_and_the_fix(tmp_path: Path) -> None:
 
 def test_all_rollers_slide(tmp_path: Path) -> None:
     text = GOOD.replace('["pinned", "roller", "roller"]', '["roller", "roller", "roller"]')
-    code, output = run("check", str(write(tmp_path, text)))
+    code, output = invoke("check", str(write(tmp_path, text)))
     assert code == 1 and "horizontally" in output
 
 
 def test_location_errors(tmp_path: Path) -> None:
     path = str(write(tmp_path, GOOD))
-    code, output = run("line", path, "moment", "--at", "30")
+    code, output = invoke("line", path, "moment", "--at", "30")
     assert code == 1 and "outside the path (0 to 22)" in output
-    code, output = run("line", path, "reaction", "--at", "Q7")
+    code, output = invoke("line", path, "reaction", "--at", "Q7")
     assert code == 1 and "'Q7' is not a chainage, a node or MEMBER@DISTANCE" in output
-    code, output = run("line", path, "reaction", "--at", "5")
+    code, output = invoke("line", path, "reaction", "--at", "5")
     assert code == 1 and "supports are: S1, S2, S3" in output
 
 
 def test_missing_file() -> None:
-    code, output = run("check", "no-such-model.toml")
+    code, output = invoke("check", "no-such-model.toml")
     assert code == 1 and "file not found" in output

@@ -12,10 +12,16 @@ import click
 from influence.cli import main
 from influence.cli.vehicles import parse_adjustments
 from influence.design import DesignBasis, SectionSettings, read_design
-from influence.envelope import ENVELOPE_CHOICES, ENVELOPE_RESPONSES, Envelope, envelope
+from influence.envelope import (
+    ENVELOPE_CHOICES,
+    ENVELOPE_RESPONSES,
+    Envelope,
+    envelope,
+    section_responses,
+)
 from influence.envelope_output import deflection_table, envelope_document, envelope_table
 from influence.errors import ModelError
-from influence.lines import analyse_model
+from influence.lines import Analysis, analyse_model
 from influence.loading import vehicles_for
 from influence.model import Model
 from influence.output import render_csv, render_json, render_table
@@ -56,7 +62,7 @@ class _Null:
 
 def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
                  step: float | None, per_span: int | None, quiet: bool,
-                 adjust: tuple[str, ...] = ()) -> tuple[Model, Envelope]:
+                 adjust: tuple[str, ...] = ()) -> tuple[Analysis, Envelope]:
     model, basis = read_design(model_file)
     models, notes = resolve_vehicles(vehicles, model, basis, parse_adjustments(adjust))
     deflection_models: list[LoadModel] = []
@@ -73,14 +79,12 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
     sections = envelope_sections(model, analysis.path, per_span=settings.per_span,
                                  step=settings.step, extra=settings.extra)
     kinds = responses or ENVELOPE_RESPONSES
-    from influence.envelope import section_responses
-
     total = len(section_responses(sections, kinds, model))
     with progress_bar(total, "envelopes", quiet) as bar:
         result = envelope(analysis, models, basis, kinds=kinds, sections=sections,
                           progress=bar.update, notes=notes,
                           deflection_models=deflection_models)
-    return model, result
+    return analysis, result
 
 
 def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
@@ -117,7 +121,9 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
     with the dead loads and factored combinations of the file."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
-    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
+    analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
+                                    adjust)
+    model = analysis.model
     kinds = responses or ENVELOPE_RESPONSES
     if fmt == "json":
         click.echo(render_json(envelope_document(result, model.title)))
@@ -149,9 +155,10 @@ def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str
     envelope and combination tables as CSV."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
-    model, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
+    analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
+                                    adjust)
     from influence.report import write_report
 
-    files = write_report(analyse_model(model), result, out_dir, responses or ENVELOPE_RESPONSES)
+    files = write_report(analysis, result, out_dir, responses or ENVELOPE_RESPONSES)
     click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "
                f"{len(files.tables)} tables in {out_dir}")

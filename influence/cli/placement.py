@@ -84,8 +84,9 @@ def govern_command(model_file: str, response: str, location: str, side: str,
 
         g = result.governing
         chosen = [p for p in (g.max, g.min) if p is not None]
-        cases = {(c.name): c for m in models for c in m.cases}
-        sweeps = [sweep(result.line.ppoly, cases[p.case], p.direction, kind=response,
+        # two load models may name a case alike: find it by model and case
+        cases = {(m.name, c.name): c for m in models for c in m.cases}
+        sweeps = [sweep(result.line.ppoly, cases[p.model, p.case], p.direction, kind=response,
                         sense=p.sense, choices=[gap.value for gap in p.gaps])
                   for p in chosen]
         save(draw_governing(result.line, chosen, sweeps, model), plot_file)
