@@ -97,11 +97,6 @@ class Extraction:
     interior_support: bool = False
 
 
-def resolve(structure: Structure, path: PathGeometry, response: Response) -> Extraction:
-    """Resolve one response to its weights (one back-substitution)."""
-    return resolve_many(structure, path, (response,))[0]
-
-
 def resolve_many(structure: Structure, path: PathGeometry,
                  responses: tuple[Response, ...]) -> list[Extraction]:
     """Resolve many responses with one multi-column back-substitution."""

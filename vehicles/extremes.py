@@ -83,11 +83,6 @@ def peak_indices(sk: Skeleton) -> np.ndarray:
     return first[(run_values >= before) & (run_values >= after)]
 
 
-def global_peak(sk: Skeleton) -> Peak:
-    """The largest value of the function and where it occurs (first such place)."""
-    return _peak_at(sk, int(np.argmax(sk.values)))
-
-
 def distinct_peaks(sk: Skeleton, count: int) -> list[Peak]:
     """Up to ``count`` local maxima, largest first, each on a separate peak.
 

@@ -46,10 +46,6 @@ class Pieces:
         """Length of every piece [length]."""
         return np.diff(self.breaks)
 
-    def end_values(self) -> np.ndarray:
-        """Value at the right end of every piece: the left limits at breaks[1:]."""
-        return horner(self.coeffs, self.widths)
-
     def values_at(self, x: np.ndarray, *, side: str = "right") -> np.ndarray:
         """One-sided limits at chainages ``x`` [length]; zero outside the breakpoints.
 

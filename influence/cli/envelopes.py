@@ -5,7 +5,6 @@ from __future__ import annotations
 import sys
 from collections.abc import Callable, Iterator
 from contextlib import contextmanager
-from typing import Any
 
 import click
 
@@ -42,22 +41,11 @@ def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis,
 
 @contextmanager
 def progress_bar(total: int, label: str, quiet: bool) -> Iterator[click.termui.ProgressBar]:  # type: ignore[type-arg]
-    """click's progress bar on a terminal; silent when piped or with --quiet."""
-    hidden = quiet or not sys.stderr.isatty()
-    sink: Any = _Null() if hidden else None
-    with click.progressbar(length=total, label=label, file=sink, show_eta=True) as bar:
+    """click's progress bar on the terminal's error stream (never mixed into the output); click
+    stays silent when that stream is piped, and ``quiet`` silences it always."""
+    with click.progressbar(length=total, label=label, file=sys.stderr, hidden=quiet,
+                           show_eta=True) as bar:
         yield bar
-
-
-class _Null:
-    def write(self, text: str) -> int:
-        return len(text)
-
-    def flush(self) -> None:
-        return None
-
-    def isatty(self) -> bool:
-        return False
 
 
 def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
