@@ -62,9 +62,9 @@ from scipy.linalg import solveh_banded
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
-from influence.beamform import continuous_beam  # noqa: E402
-from influence.lines import analyse_model  # noqa: E402
-from influence.responses import Response  # noqa: E402
+from influence.analysis.lines import analyse_model  # noqa: E402
+from influence.analysis.responses import Response  # noqa: E402
+from influence.model.beamform import continuous_beam  # noqa: E402
 from vehicles import Axle, LoadCase, LoadModel, Train, get_model  # noqa: E402
 from vehicles.batch import govern_many  # noqa: E402
 

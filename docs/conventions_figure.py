@@ -12,10 +12,10 @@ import matplotlib
 matplotlib.use("Agg")
 import matplotlib.pyplot as plt  # noqa: E402
 
-from influence.beamform import simple_beam  # noqa: E402
-from influence.lines import analyse_model  # noqa: E402
-from influence.plot import PALETTE, draw_line  # noqa: E402
-from influence.responses import Response  # noqa: E402
+from influence.analysis.lines import analyse_model  # noqa: E402
+from influence.analysis.responses import Response  # noqa: E402
+from influence.model.beamform import simple_beam  # noqa: E402
+from influence.output.figures import PALETTE, draw_line  # noqa: E402
 
 
 def _arrow(ax, x, y, dx, dy, text, colour=PALETTE["section"]):  # type: ignore[no-untyped-def]

@@ -8,11 +8,11 @@ Example (a 10 m simple span: the midspan moment line peaks at L/4 under the sect
     (2.5, 0.0)
 """
 
-from influence.beamform import continuous_beam, simple_beam
+from influence.analysis.lines import Analysis, InfluenceLine, analyse_model, influence_line
+from influence.analysis.responses import Response
 from influence.errors import InfluenceError, LocationError, MechanismError, ModelError
-from influence.lines import Analysis, InfluenceLine, analyse_model, influence_line
-from influence.modelfile import read_model
-from influence.responses import Response
+from influence.model.beamform import continuous_beam, simple_beam
+from influence.model.reader import read_model
 
 __all__ = [
     "Analysis",

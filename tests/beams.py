@@ -6,9 +6,9 @@ from collections.abc import Sequence
 
 import numpy as np
 
-from influence.beamform import continuous_beam
-from influence.lines import InfluenceLine, analyse_model
-from influence.responses import Response
+from influence.analysis.lines import InfluenceLine, analyse_model
+from influence.analysis.responses import Response
+from influence.model.beamform import continuous_beam
 
 RELATIVE = 1e-9
 """Agreement required of ordinates against outside references [-] (issue 2)."""

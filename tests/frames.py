@@ -3,7 +3,7 @@ frame with inclined legs. Geometry comes from the test that uses them."""
 
 from __future__ import annotations
 
-from influence.model import Member, Model, Node, PathLeg, Support
+from influence.model.structure import Member, Model, Node, PathLeg, Support
 
 CHORD_EA = 6.3e6
 WEB_EA = 2.5e6

@@ -13,9 +13,9 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from influence.beamform import continuous_beam
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.model.beamform import continuous_beam
 from tests.influence_forms import simple_moment, simple_shear
 from vehicles import LoadCase, LoadModel, Scope, VehicleError, get_model
 from vehicles.batch import govern_many

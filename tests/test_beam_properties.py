@@ -14,9 +14,9 @@ import numpy as np
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from influence.beamform import continuous_beam
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.model.beamform import continuous_beam
 
 TOLERANCE = 1e-9
 

@@ -14,8 +14,8 @@ from pathlib import Path
 import pytest
 
 from vehicles import VehicleError, adjusted, get_model, library_names, load_model, model_in
-from vehicles.describe import details, summary
-from vehicles.tables import library_table, model_text
+from vehicles.output.describe import details, summary
+from vehicles.output.tables import library_table, model_text
 from vehicles.units import KN_PER_KIP, M_PER_FT, factors
 
 ROUND_TRIP = 1e-12

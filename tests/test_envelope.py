@@ -7,12 +7,12 @@ from pathlib import Path
 
 import pytest
 
-from influence.beamform import continuous_beam
-from influence.design import Combination, DeadLoad, DesignBasis, LiveLoadSettings, read_design
-from influence.envelope import envelope
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.design.envelope import envelope
 from influence.errors import ModelError
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.model.basis import Combination, DeadLoad, DesignBasis, LiveLoadSettings, read_design
+from influence.model.beamform import continuous_beam
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.placement import govern
 from vehicles.train import Axle, Train

@@ -16,9 +16,9 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from influence.lines import analyse_model
-from influence.modelfile import read_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.model.reader import read_model
 
 EXAMPLES = sorted((Path(__file__).resolve().parent.parent / "examples").glob("*.toml"))
 
@@ -55,7 +55,7 @@ VEHICLE_FILES = sorted((Path(__file__).resolve().parent.parent / "examples" / "v
 
 @pytest.mark.parametrize("path", VEHICLE_FILES, ids=lambda p: p.stem)
 def test_example_vehicles_read(path: Path) -> None:
-    from vehicles.catalog import load_model
+    from vehicles.library.catalog import load_model
 
     model = load_model(path)
     assert model.cases and model.cases[0].train is not None
@@ -65,8 +65,8 @@ def test_crane_pair_on_a_simple_span_follows_the_two_load_rule() -> None:
     # AISC Manual, moving loads, "two equal concentrated loads" (case number from memory;
     # ../shared/REFERENCES.md 2.1): for a spacing a < 0.586 L the largest moment is
     # (P/2L)(L - a/2)^2. Here on a 40 ft simple span, P = 31.5 kip x 1.25 impact, a = 11.5 ft.
-    from influence.beamform import simple_beam
-    from vehicles.catalog import load_model
+    from influence.model.beamform import simple_beam
+    from vehicles.library.catalog import load_model
     from vehicles.placement import govern
 
     crane = load_model(by_vehicle("crane-pair"))

@@ -16,12 +16,12 @@ import numpy as np
 import pytest
 from click.testing import CliRunner
 
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
 from influence.cli import main
 from influence.errors import LocationError, MechanismError, ModelError
-from influence.lines import analyse_model
-from influence.model import Member, Model, Node, PathLeg, Support
-from influence.modelfile import read_model
-from influence.responses import Response
+from influence.model.reader import read_model
+from influence.model.structure import Member, Model, Node, PathLeg, Support
 from tests.beams import close
 from tests.frames import portal_frame, pratt_truss
 

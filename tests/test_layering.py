@@ -12,8 +12,9 @@ ROOT = Path(__file__).resolve().parent.parent
 
 def test_computation_does_not_import_matplotlib() -> None:
     code = ("import sys\n"
-            "import influence.envelope, influence.governing, influence.cli, vehicles.batch\n"
-            "import vehicles.catalog, vehicles.sweep, vehicles.concurrent\n"
+            "import influence.design.envelope, influence.design.governing, influence.cli\n"
+            "import vehicles.batch\n"
+            "import vehicles.library.catalog, vehicles.sweep, vehicles.concurrent\n"
             "print('matplotlib' in sys.modules)")
     result = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
                             cwd=ROOT, check=True)

@@ -6,9 +6,9 @@ from pathlib import Path
 
 import pytest
 
+from influence.analysis.lines import analyse_model
 from influence.errors import MechanismError, ModelError
-from influence.lines import analyse_model
-from influence.modelfile import read_model
+from influence.model.reader import read_model
 from tests.cli import invoke
 
 GOOD = """

@@ -24,9 +24,9 @@ import pytest
 from tests.influence_forms import continuous_moment
 from vehicles import Axle, LoadCase, LoadModel, Train, VehicleError
 from vehicles.concurrent import concurrent
-from vehicles.modelwriter import model_to_toml
+from vehicles.library.files import parse_model
+from vehicles.library.writer import model_to_toml
 from vehicles.placement import govern
-from vehicles.vehiclefile import parse_model
 
 L = 10.0  # [m] each span
 HEAVY, LIGHT, SPACING = 100.0, 60.0, 12.0  # [kN], [kN], [m]; SPACING > L

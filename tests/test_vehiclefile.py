@@ -14,9 +14,9 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from vehicles import Axle, LoadCase, LoadModel, Patch, Scope, Train, VehicleError
-from vehicles.catalog import library_models
-from vehicles.modelwriter import model_to_toml, write_model
-from vehicles.vehiclefile import parse_model, read_model
+from vehicles.library.catalog import library_models
+from vehicles.library.files import parse_model, read_model
+from vehicles.library.writer import model_to_toml, write_model
 
 EXACT = 1e-12
 """Relative tolerance for sums of a few decimal numbers."""

@@ -10,17 +10,17 @@ Example:
     [0.0, 4.2672, 13.2672]
 """
 
-from vehicles.adjust import adjusted
 from vehicles.batch import govern_many
-from vehicles.catalog import get_model, library_names, load_model
 from vehicles.errors import VehicleError
+from vehicles.library.adjust import adjusted
+from vehicles.library.catalog import get_model, library_names, load_model
+from vehicles.library.files import read_model
+from vehicles.library.writer import write_model
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
-from vehicles.modelwriter import write_model
 from vehicles.placement import Governing, Placement, govern
 from vehicles.sweep import sweep
 from vehicles.train import Arrangement, Axle, Patch, Train
 from vehicles.units import model_in
-from vehicles.vehiclefile import read_model
 
 __all__ = [
     "Adjustment",

@@ -163,7 +163,8 @@ SET_QUANTITIES = ("dynamic_allowance", "uniform_dynamic_allowance", "lane_dynami
 class Adjustment:
     """A named input of a load model that the user may change, such as EN 1991-2's alpha.
 
-    The model's loads are stored as they are at ``value``; see :func:`vehicles.adjust.adjusted`.
+    The model's loads are stored as they are at ``value``; see
+    :func:`vehicles.library.adjust.adjusted`.
 
     Args:
         name: the symbol, such as "alpha" or "impact".
@@ -211,7 +212,7 @@ class LoadModel:
         standard: the standard and edition ("" for a user's own vehicle).
         clause: the clauses the values come from.
         notes: remarks, including which values were recalled rather than read.
-        adjustments: inputs the user may change (see :func:`vehicles.adjust.adjusted`).
+        adjustments: inputs the user may change (see :func:`vehicles.library.adjust.adjusted`).
     """
 
     name: str

@@ -8,23 +8,23 @@ from contextlib import contextmanager
 
 import click
 
+from influence.analysis.lines import Analysis, analyse_model
 from influence.cli import main
 from influence.cli.vehicles import parse_adjustments
-from influence.design import DesignBasis, SectionSettings, read_design
-from influence.envelope import (
+from influence.design.envelope import (
     ENVELOPE_CHOICES,
     ENVELOPE_RESPONSES,
     Envelope,
     envelope,
     section_responses,
 )
-from influence.envelope_output import deflection_table, envelope_document, envelope_table
+from influence.design.loading import vehicles_for
+from influence.design.sections import envelope_sections
 from influence.errors import ModelError
-from influence.lines import Analysis, analyse_model
-from influence.loading import vehicles_for
-from influence.model import Model
-from influence.output import render_csv, render_json, render_table
-from influence.sections import envelope_sections
+from influence.model.basis import DesignBasis, SectionSettings, read_design
+from influence.model.structure import Model
+from influence.output.envelope_tables import deflection_table, envelope_document, envelope_table
+from influence.output.tables import render_csv, render_json, render_table
 from vehicles.loadmodel import LoadModel
 
 
@@ -123,8 +123,8 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
             blocks.append(render(deflection_table(result, model.title)))
         click.echo("\n\n".join(blocks))
     if plot_file:
-        from influence.plot import save
-        from influence.report import envelope_figure
+        from influence.output.figures import save
+        from influence.output.report import envelope_figure
 
         save(envelope_figure(result, kinds, model.title), plot_file)
 
@@ -145,7 +145,7 @@ def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str
         raise click.UsageError("give --step or --per-span, not both")
     analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
                                     adjust)
-    from influence.report import write_report
+    from influence.output.report import write_report
 
     files = write_report(analysis, result, out_dir, responses or ENVELOPE_RESPONSES)
     click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "

@@ -5,14 +5,14 @@ from __future__ import annotations
 import click
 import numpy as np
 
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import RESPONSE_KINDS, Response
 from influence.cli import main
 from influence.cli.placement import location_options
-from influence.lines import analyse_model
-from influence.modelfile import read_model
-from influence.output import render_csv, render_json, render_table
-from influence.responses import RESPONSE_KINDS, Response
-from influence.summary import render_summary, summarise
-from influence.tabulate import line_document, line_table, positions
+from influence.model.reader import read_model
+from influence.output.line_tables import line_document, line_table, positions
+from influence.output.summary import render_summary, summarise
+from influence.output.tables import render_csv, render_json, render_table
 
 
 def _position_list(text: str | None) -> np.ndarray | None:
@@ -38,7 +38,7 @@ def check_command(model_file: str, fmt: str, plot_file: str | None) -> None:
     summary = summarise(model)
     click.echo(render_json(summary.as_dict()) if fmt == "json" else render_summary(summary))
     if plot_file:
-        from influence.plot import draw_structure, save
+        from influence.output.figures import draw_structure, save
 
         save(draw_structure(model), plot_file)
 
@@ -68,6 +68,6 @@ def line_command(model_file: str, response: str, location: str, side: str,
         table = line_table(line, model.title, at)
         click.echo(render_csv(table) if fmt == "csv" else render_table(table))
     if plot_file:
-        from influence.plot import draw_line, save
+        from influence.output.figures import draw_line, save
 
         save(draw_line(line, model), plot_file)

@@ -6,20 +6,20 @@ from collections.abc import Callable
 
 import click
 
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import COMPONENTS, RESPONSE_KINDS, SIDES, Response
 from influence.cli import main
 from influence.cli.vehicles import parse_adjustments
-from influence.governing import governing, parse_concurrent
-from influence.governing_output import (
+from influence.design.governing import governing, parse_concurrent
+from influence.design.loading import vehicles_for
+from influence.model.reader import read_model
+from influence.output.governing_tables import (
     governing_document,
     governing_table,
     sweep_document,
     sweep_table,
 )
-from influence.lines import analyse_model
-from influence.loading import vehicles_for
-from influence.modelfile import read_model
-from influence.output import render_csv, render_json, render_table
-from influence.responses import COMPONENTS, RESPONSE_KINDS, SIDES, Response
+from influence.output.tables import render_csv, render_json, render_table
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadModel
 from vehicles.placement import govern
@@ -79,8 +79,8 @@ def govern_command(model_file: str, response: str, location: str, side: str,
     click.echo(_render(fmt, governing_table(result, model.title, notes),
                        governing_document(result, model.title, notes)))
     if plot_file:
-        from influence.governing_plot import draw_governing
-        from influence.plot import save
+        from influence.output.figures import save
+        from influence.output.governing_figures import draw_governing
 
         g = result.governing
         chosen = [p for p in (g.max, g.min) if p is not None]
@@ -128,8 +128,8 @@ def sweep_command(model_file: str, response: str, location: str, side: str,
     click.echo(_render(fmt, sweep_table(sweeps, response, model.units, title, notes),
                        sweep_document(sweeps, response, model.units, title, notes)))
     if plot_file:
-        from influence.governing_plot import draw_governing
-        from influence.plot import save
+        from influence.output.figures import save
+        from influence.output.governing_figures import draw_governing
 
         # the trains drawn where the swept cases govern
         chosen = LoadModel(models[0].name, models[0].title, models[0].units, tuple(cases))

@@ -7,9 +7,9 @@ from pathlib import Path
 import click
 
 from influence.cli import main
-from vehicles.catalog import library_models, load_model
-from vehicles.describe import details, summary
-from vehicles.tables import as_json, library_table, model_text
+from vehicles.library.catalog import library_models, load_model
+from vehicles.output.describe import details, summary
+from vehicles.output.tables import as_json, library_table, model_text
 from vehicles.units import SYSTEMS
 
 
@@ -49,7 +49,7 @@ def vehicles_command(name: str | None, units: str | None, output_format: str,
         return
     model = load_model(name, units, parse_adjustments(adjust))
     if plot_path is not None:
-        from vehicles.plot import plot_model
+        from vehicles.output.figures import plot_model
 
         plot_model(model, plot_path)
         click.echo(f"drawing written to {plot_path}", err=True)

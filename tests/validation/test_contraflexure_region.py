@@ -10,10 +10,10 @@ only.
 
 from __future__ import annotations
 
-from influence.beamform import continuous_beam
-from influence.lines import analyse_model
-from influence.responses import Response
-from vehicles.catalog import get_model
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.model.beamform import continuous_beam
+from vehicles.library.catalog import get_model
 from vehicles.placement import govern
 
 L = 30.0

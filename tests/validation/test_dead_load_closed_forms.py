@@ -12,11 +12,11 @@ from __future__ import annotations
 
 import pytest
 
-from influence.beamform import continuous_beam, simple_beam
-from influence.deadload import dead_load_effect
-from influence.design import DeadLoad
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.design.deadload import dead_load_effect
+from influence.model.basis import DeadLoad
+from influence.model.beamform import continuous_beam, simple_beam
 
 RELATIVE = 1e-9
 w, L = 18.0, 14.0

@@ -12,11 +12,11 @@ from __future__ import annotations
 
 import pytest
 
-from influence.beamform import simple_beam
-from influence.design import DesignBasis, LiveLoadSettings
-from influence.envelope import envelope
-from influence.lines import analyse_model
-from vehicles.catalog import get_model
+from influence.analysis.lines import analyse_model
+from influence.design.envelope import envelope
+from influence.model.basis import DesignBasis, LiveLoadSettings
+from influence.model.beamform import simple_beam
+from vehicles.library.catalog import get_model
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.train import Axle, Train
 

@@ -15,7 +15,7 @@ from __future__ import annotations
 import pytest
 
 from vehicles import LoadCase, LoadModel, Scope, Train, get_model
-from vehicles.describe import train_totals
+from vehicles.output.describe import train_totals
 
 EXACT = 1e-12
 """Relative tolerance for sums of a few decimal numbers."""

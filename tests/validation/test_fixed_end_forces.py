@@ -15,8 +15,8 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from influence.element import MemberLaw
-from influence.singularity import evaluate
+from influence.analysis.element import MemberLaw
+from influence.analysis.singularity import evaluate
 
 L, EA, EI = 6.0, 3.0e6, 2.5e4
 TOLERANCE = 1e-12

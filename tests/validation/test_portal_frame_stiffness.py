@@ -14,8 +14,8 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
 from tests.beams import close
 from tests.frames import portal_frame
 

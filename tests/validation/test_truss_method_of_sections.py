@@ -18,8 +18,8 @@ import math
 
 import numpy as np
 
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
 from tests.beams import close
 from tests.frames import pratt_truss
 

@@ -15,9 +15,9 @@ import math
 
 import pytest
 
-from influence.governing import governing
-from influence.lines import analyse_model
-from influence.responses import Response
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.design.governing import governing
 from tests.frames import pratt_truss
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.train import Axle, Train

@@ -4,8 +4,8 @@ of each span (common practice for girders) or a finer step, and named sections o
 A span is the stretch of path between two consecutive supported nodes (or a path end).
 
 Example:
-    >>> from influence.beamform import continuous_beam
-    >>> from influence.path import trace
+    >>> from influence.model.beamform import continuous_beam
+    >>> from influence.model.path import trace
     >>> model = continuous_beam([10.0, 10.0], 1.0, ["pinned", "roller", "roller"])
     >>> [s.label for s in envelope_sections(model, trace(model), per_span=2)]
     ['S1', '5', 'S2 left', 'S2 right', '15', 'S3']
@@ -17,8 +17,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from influence.model import Model
-from influence.path import CHAINAGE_TOLERANCE, PathGeometry
+from influence.model.path import CHAINAGE_TOLERANCE, PathGeometry
+from influence.model.structure import Model
 
 
 @dataclass(frozen=True)

@@ -7,9 +7,9 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from influence.conventions import effect_unit
-from influence.envelope import Envelope
-from influence.plot import PALETTE, new_axes
+from influence.design.envelope import Envelope
+from influence.output.conventions import effect_unit
+from influence.output.figures import PALETTE, new_axes
 from vehicles.units import labels
 
 if TYPE_CHECKING:

@@ -4,10 +4,10 @@ from __future__ import annotations
 
 from typing import Any
 
-from influence.conventions import effect_unit, header_lines
-from influence.envelope import Envelope, EnvelopeEntry, governing_label
-from influence.governing_output import placement_fields
-from influence.output import Table
+from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
+from influence.output.conventions import effect_unit, header_lines
+from influence.output.governing_tables import placement_fields
+from influence.output.tables import Table
 from vehicles.placement import Placement
 from vehicles.units import labels
 

@@ -1,7 +1,7 @@
 """A model's summary for `influence check`: what the tool understood from the file.
 
 Example:
-    >>> from influence.beamform import continuous_beam
+    >>> from influence.model.beamform import continuous_beam
     >>> summary = summarise(continuous_beam([8.0, 8.0], 1.0, ["pinned", "roller", "roller"]))
     >>> summary.static_indeterminacy, summary.path_length
     (1, 16.0)
@@ -12,10 +12,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any
 
-from influence.conventions import header_lines
-from influence.lines import analyse_model
-from influence.model import Model
-from influence.output import Table, render_table
+from influence.analysis.lines import analyse_model
+from influence.model.structure import Model
+from influence.output.conventions import header_lines
+from influence.output.tables import Table, render_table
 from vehicles.units import labels
 
 

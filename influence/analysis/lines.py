@@ -6,7 +6,7 @@ most; it may jump at the section (shear, axial force) and is zero off the path. 
 smallest ordinates, areas and zero crossings come from the piece polynomials, never from sampling.
 
 Example (simple span of 10, moment at midspan: the peak ordinate L/4 = 2.5 at the section):
-    >>> from influence.beamform import simple_beam
+    >>> from influence.model.beamform import simple_beam
     >>> line = influence_line(simple_beam(10.0), Response("moment", "5"))
     >>> peak = line.extremes().largest
     >>> round(peak.value, 12), peak.at
@@ -25,11 +25,11 @@ import numpy as np
 from numpy.polynomial import polynomial as P
 from scipy.interpolate import PPoly
 
-from influence.model import Model
-from influence.path import PathGeometry, trace
-from influence.responses import Extraction, Response, resolve_many
-from influence.singularity import TERMS, substitute
-from influence.solve import Structure, analyse
+from influence.analysis.responses import Extraction, Response, resolve_many
+from influence.analysis.singularity import TERMS, substitute
+from influence.analysis.solve import Structure, analyse
+from influence.model.path import PathGeometry, trace
+from influence.model.structure import Model
 
 NOISE = 1e-14
 """A term of a piece smaller than this fraction [-] of the line's largest term is round-off of the
@@ -92,7 +92,7 @@ class InfluenceLine:
         Example (10 m simple span, shear at 4: a load standing exactly on the section gives
         -a/L from the left and (L - a)/L from the right; one standing on a support is carried
         by the support alone):
-            >>> from influence.beamform import simple_beam
+            >>> from influence.model.beamform import simple_beam
             >>> shear = influence_line(simple_beam(10.0), Response("shear", "4"))
             >>> left, right = shear.values([4.0], side="left")[0], shear.values([4.0])[0]
             >>> round(float(left), 12), round(float(right), 12)
@@ -161,7 +161,7 @@ class InfluenceLine:
 
         Example (moment over the middle support of two 10 m spans: negative throughout, so
         no crossing; the midspan moment of the first span changes sign at the middle support):
-            >>> from influence.beamform import continuous_beam
+            >>> from influence.model.beamform import continuous_beam
             >>> beam = continuous_beam([10.0, 10.0], 1.0, ["pinned", "roller", "roller"])
             >>> influence_line(beam, Response("moment", "S2")).zero_crossings().tolist()
             []

@@ -12,10 +12,10 @@ from typing import TYPE_CHECKING, Any
 
 import numpy as np
 
-from influence.conventions import ordinate_unit
-from influence.lines import InfluenceLine
-from influence.model import Model
-from influence.path import trace
+from influence.analysis.lines import InfluenceLine
+from influence.model.path import trace
+from influence.model.structure import Model
+from influence.output.conventions import ordinate_unit
 from vehicles.atomic import written_whole
 from vehicles.units import labels
 

@@ -5,9 +5,9 @@ from __future__ import annotations
 from collections.abc import Sequence
 from typing import Any
 
-from influence.conventions import effect_unit, header_lines
-from influence.governing import GoverningResult
-from influence.output import Table
+from influence.design.governing import GoverningResult
+from influence.output.conventions import effect_unit, header_lines
+from influence.output.tables import Table
 from vehicles.concurrent import Concurrent
 from vehicles.placement import Placement
 from vehicles.sweep import Sweep

@@ -3,8 +3,8 @@ effects and the factored combinations, each value traceable to its governing pla
 
 For each section and response the influence line is built exactly and handed to the exact
 placement search of :mod:`vehicles.placement`; dead loads are integrated exactly on the same
-line (:mod:`influence.deadload`). Live-load values of one lane are multiplied by the live-load
-scale (distribution factor x multiple presence factor) of the design basis.
+line (:mod:`influence.design.deadload`). Live-load values of one lane are multiplied by the
+live-load scale (distribution factor x multiple presence factor) of the design basis.
 
 A combination factors each load name with its maximum and minimum factors and the live load
 with its factor: largest = sum of max(f_max D, f_min D) + f_LL max(LL_max, 0); smallest the same
@@ -20,12 +20,12 @@ from functools import partial
 import numpy as np
 from scipy.optimize import minimize_scalar
 
-from influence.deadload import dead_load_effects
-from influence.design import LIVE_LOAD, Combination, DesignBasis
-from influence.lines import Analysis, InfluenceLine
-from influence.model import Model
-from influence.responses import Response
-from influence.sections import Section, Span, envelope_sections, spans
+from influence.analysis.lines import Analysis, InfluenceLine
+from influence.analysis.responses import Response
+from influence.design.deadload import dead_load_effects
+from influence.design.sections import Section, Span, envelope_sections, spans
+from influence.model.basis import LIVE_LOAD, Combination, DesignBasis
+from influence.model.structure import Model
 from vehicles.batch import govern_many
 from vehicles.loadmodel import LoadModel
 from vehicles.placement import Governing, Placement, govern

@@ -34,7 +34,7 @@ from functools import cached_property
 
 import numpy as np
 
-from influence.singularity import TERMS, bracket, evaluate
+from influence.analysis.singularity import TERMS, bracket, evaluate
 
 __all__ = ["FIELDS", "FieldRule", "MemberLaw", "evaluate"]
 

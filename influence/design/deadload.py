@@ -2,9 +2,9 @@
 the area of the line there; a point load P gives P times the ordinate.
 
 Example (a uniform load w on a simple span: wL^2/8 at midspan, wL/2 at each end; textbook):
-    >>> from influence.beamform import simple_beam
-    >>> from influence.lines import analyse_model
-    >>> from influence.responses import Response
+    >>> from influence.model.beamform import simple_beam
+    >>> from influence.analysis.lines import analyse_model
+    >>> from influence.analysis.responses import Response
     >>> analysis = analyse_model(simple_beam(10.0))
     >>> deck = DeadLoad("deck", "DC", uniform=2.0)
     >>> round(dead_load_effect(analysis.line(Response("moment", "5")), deck, analysis.path), 9)
@@ -13,9 +13,9 @@ Example (a uniform load w on a simple span: wL^2/8 at midspan, wL/2 at each end;
 
 from __future__ import annotations
 
-from influence.design import DeadLoad
-from influence.lines import InfluenceLine
-from influence.path import PathGeometry
+from influence.analysis.lines import InfluenceLine
+from influence.model.basis import DeadLoad
+from influence.model.path import PathGeometry
 
 
 def loaded_stretches(load: DeadLoad, path: PathGeometry) -> list[tuple[float, float]]:

@@ -18,7 +18,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from influence.errors import ModelError
-from influence.model import Member, Model, Node, PathLeg, Support
+from influence.model.structure import Member, Model, Node, PathLeg, Support
 
 POSITION_TOLERANCE = 1e-9
 """Relative distance [-] within which two chainages are taken as the same point."""

@@ -1,10 +1,10 @@
-"""Text and JSON renderings of the descriptions made by :mod:`vehicles.describe`.
+"""Text and JSON renderings of the descriptions made by :mod:`vehicles.output.describe`.
 
 Numbers are printed to six significant figures with their unit label; ranges as "14 to 30 ft".
 
 Example:
-    >>> from vehicles.catalog import get_model
-    >>> from vehicles.describe import summary
+    >>> from vehicles.library.catalog import get_model
+    >>> from vehicles.output.describe import summary
     >>> print(library_table([summary(get_model("LM2"))]))  # doctest: +NORMALIZE_WHITESPACE
     name  units  cases  train load  train length  standard
     LM2   kN-m   1      400 kN      0 m           EN 1991-2:2003 Actions on structures - ...
@@ -46,7 +46,8 @@ def _short(text: str, width: int = 48) -> str:
 
 
 def library_table(rows: Sequence[dict[str, Any]]) -> str:
-    """The library listing: one line a model (rows from :func:`vehicles.describe.summary`)."""
+    """The library listing: one line a model (rows from
+    :func:`vehicles.output.describe.summary`)."""
     table = [["name", "units", "cases", "train load", "train length", "standard"]]
     for row in rows:
         unit = labels(row["units"])
@@ -105,7 +106,7 @@ def _case_lines(number: int, case: dict[str, Any], unit: Any) -> list[str]:
 
 
 def model_text(model: dict[str, Any]) -> str:
-    """One model in full (a description from :func:`vehicles.describe.details`)."""
+    """One model in full (a description from :func:`vehicles.output.describe.details`)."""
     unit = labels(model["units"])
     lines = [f"{model['name']}: {model['title']}"]
     if model["standard"]:

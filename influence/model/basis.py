@@ -43,8 +43,8 @@ from pathlib import Path
 from typing import Any
 
 from influence.errors import ModelError
-from influence.model import Model
-from influence.modelfile import check_keys, model_from_document, read_number, read_toml
+from influence.model.reader import check_keys, model_from_document, read_number, read_toml
+from influence.model.structure import Model
 
 LIVE_LOAD = "LL"
 """The name combinations use for the live load."""

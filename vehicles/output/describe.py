@@ -1,7 +1,7 @@
 """Plain descriptions of load models for display: library rows and one model in full.
 
 The descriptions are dictionaries of text, numbers, lists and None only, ready for JSON and for
-the table formatter in :mod:`vehicles.tables`. Every quantity sits beside its unit label.
+the table formatter in :mod:`vehicles.output.tables`. Every quantity sits beside its unit label.
 
 Lengths and totals of a train count what is finite: an unlimited uniform load (the trailing load
 of Cooper E80, say) is reported apart as ``unlimited_uniform`` [force/length], and ``length`` runs
@@ -9,7 +9,7 @@ from the front of the train to the start of that load. A ranged gap or patch len
 ``[min, max]`` pair; fixed values give equal ends.
 
 Example:
-    >>> from vehicles.catalog import get_model
+    >>> from vehicles.library.catalog import get_model
     >>> row = summary(get_model("HL-93"))
     >>> row["cases"], row["total_load"], row["length"]
     (3, [50.0, 144.0], [4.0, 1056.0])

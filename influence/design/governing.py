@@ -3,8 +3,8 @@ the top distinct positions, and the effects of other responses concurrent with t
 
 Example (one 100 kN axle on a 10 m simple span: the largest midspan moment is PL/4 = 250 kN m,
 and the reaction concurrent with it is P/2):
-    >>> from influence.beamform import simple_beam
-    >>> from influence.lines import analyse_model
+    >>> from influence.model.beamform import simple_beam
+    >>> from influence.analysis.lines import analyse_model
     >>> from vehicles.loadmodel import LoadCase, LoadModel
     >>> from vehicles.train import Axle, Train
     >>> axle = LoadModel("P", "one axle", "kN-m", (LoadCase("axle", Train("P", (Axle(100.0),))),))
@@ -19,9 +19,9 @@ from __future__ import annotations
 from collections.abc import Sequence
 from dataclasses import dataclass
 
+from influence.analysis.lines import Analysis, InfluenceLine
+from influence.analysis.responses import RESPONSE_KINDS, SIDES, Response
 from influence.errors import LocationError
-from influence.lines import Analysis, InfluenceLine
-from influence.responses import RESPONSE_KINDS, SIDES, Response
 from vehicles.concurrent import Concurrent, concurrent
 from vehicles.loadmodel import LoadModel
 from vehicles.placement import Governing, Placement, govern

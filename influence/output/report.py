@@ -19,15 +19,15 @@ from datetime import date
 from pathlib import Path
 from typing import Any
 
-from influence.conventions import CAUTION, SIGN_CONVENTIONS
-from influence.envelope import Envelope, EnvelopeEntry
-from influence.envelope_output import deflection_table, envelope_header, envelope_table
-from influence.lines import Analysis
-from influence.output import Table, render_csv, render_table
-from influence.plot import PALETTE, draw_line, draw_structure
-from influence.summary import render_summary, summarise
-from vehicles.describe import details
-from vehicles.tables import model_text
+from influence.analysis.lines import Analysis
+from influence.design.envelope import Envelope, EnvelopeEntry
+from influence.output.conventions import CAUTION, SIGN_CONVENTIONS
+from influence.output.envelope_tables import deflection_table, envelope_header, envelope_table
+from influence.output.figures import PALETTE, draw_line, draw_structure
+from influence.output.summary import render_summary, summarise
+from influence.output.tables import Table, render_csv, render_table
+from vehicles.output.describe import details
+from vehicles.output.tables import model_text
 
 PAGE = (11.69, 8.27)  # A4 landscape [in]
 ROWS_PER_PAGE = 46
@@ -131,7 +131,7 @@ def report_figures(analysis: Analysis, envelope: Envelope,
     draw_structure(model, ax=ax)
     yield "02-structure", figure
 
-    from vehicles.plot import plot_train
+    from vehicles.output.figures import plot_train
 
     for number, load_model in enumerate(envelope.models, start=1):
         text = model_text(details(load_model))
@@ -163,7 +163,7 @@ def report_figures(analysis: Analysis, envelope: Envelope,
             ax.axis("off")
         yield f"04-influence-lines-{start // 2 + 1}", figure
 
-    from influence.envelope_plot import draw_envelope
+    from influence.output.envelope_figures import draw_envelope
 
     for kind in kinds:
         if envelope.of(kind):
@@ -187,7 +187,7 @@ def report_figures(analysis: Analysis, envelope: Envelope,
 def envelope_figure(envelope: Envelope, kinds: Sequence[str], title: str) -> Any:
     """All envelope plots of a run stacked on one figure; returns its first axes."""
     plt = _pyplot()
-    from influence.envelope_plot import draw_envelope
+    from influence.output.envelope_figures import draw_envelope
 
     present = [k for k in kinds if envelope.of(k)]
     figure, axes = plt.subplots(len(present), 1, figsize=(10, 3.4 * len(present)),

@@ -10,9 +10,9 @@ from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
 
-from vehicles.adjust import adjusted
-from vehicles.catalog import load_model
 from vehicles.errors import VehicleError
+from vehicles.library.adjust import adjusted
+from vehicles.library.catalog import load_model
 from vehicles.loadmodel import LoadModel
 from vehicles.units import model_in
 

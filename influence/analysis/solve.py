@@ -23,9 +23,9 @@ from functools import cached_property
 import numpy as np
 import scipy.linalg
 
-from influence.element import MemberLaw, rotation_matrix
+from influence.analysis.element import MemberLaw, rotation_matrix
 from influence.errors import MechanismError
-from influence.model import DIRECTION_WORDS, DIRECTIONS, Model
+from influence.model.structure import DIRECTION_WORDS, DIRECTIONS, Model
 
 MECHANISM_TOLERANCE = 1e-10
 """Smallest eigenvalue [-] of the diagonally scaled free stiffness taken as zero (a mechanism)."""

@@ -24,9 +24,9 @@ from typing import Any
 
 import numpy as np
 
+from influence.analysis.solve import Structure
 from influence.errors import LocationError, ModelError
-from influence.path import CHAINAGE_TOLERANCE, PathGeometry
-from influence.solve import Structure
+from influence.model.path import CHAINAGE_TOLERANCE, PathGeometry
 
 RESPONSE_KINDS = ("reaction", "shear", "moment", "axial", "deflection", "rotation")
 SIDES = ("left", "right")

@@ -43,10 +43,10 @@ import tomllib
 from pathlib import Path
 from typing import Any
 
-from influence.beamform import continuous_beam
 from influence.errors import ModelError
-from influence.model import Member, Model, Node, PathLeg, Support
-from influence.path import orient, route
+from influence.model.beamform import continuous_beam
+from influence.model.path import orient, route
+from influence.model.structure import Member, Model, Node, PathLeg, Support
 
 UNIT_SYSTEMS = ("kN-m", "kip-ft")
 TOP_KEYS = {"title", "units", "beam", "nodes", "members", "path", "loads", "combinations",

@@ -5,7 +5,7 @@ against its member (from the member's end node to its start node) maps chainage 
 position a = length - (c - leg start).
 
 Example:
-    >>> from influence.model import Member, Model, Node, PathLeg, Support
+    >>> from influence.model.structure import Member, Model, Node, PathLeg, Support
     >>> nodes = (Node("A", 0, 0, Support.named("pinned")),
     ...          Node("B", 10, 0, Support.named("roller")),
     ...          Node("C", 25, 0, Support.named("roller")))
@@ -24,7 +24,7 @@ from functools import cached_property
 import networkx as nx
 
 from influence.errors import LocationError, ModelError
-from influence.model import Member, Model, PathLeg
+from influence.model.structure import Member, Model, PathLeg
 
 CHAINAGE_TOLERANCE = 1e-9
 """Relative tolerance [-] within which a chainage is taken to be at a node or a path end."""

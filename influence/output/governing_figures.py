@@ -8,10 +8,10 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from influence.conventions import effect_unit
-from influence.lines import InfluenceLine
-from influence.model import Model
-from influence.plot import PALETTE, draw_line
+from influence.analysis.lines import InfluenceLine
+from influence.model.structure import Model
+from influence.output.conventions import effect_unit
+from influence.output.figures import PALETTE, draw_line
 from vehicles.placement import Placement
 from vehicles.sweep import Sweep
 from vehicles.units import labels

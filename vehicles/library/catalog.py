@@ -24,11 +24,11 @@ from collections.abc import Mapping
 from importlib import resources
 from pathlib import Path
 
-from vehicles.adjust import adjusted
 from vehicles.errors import VehicleError
+from vehicles.library.adjust import adjusted
+from vehicles.library.files import parse_model, read_model
 from vehicles.loadmodel import LoadModel
 from vehicles.units import model_in
-from vehicles.vehiclefile import parse_model, read_model
 
 
 def _key(name: str) -> str:

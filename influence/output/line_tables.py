@@ -1,9 +1,9 @@
 """Influence lines as tables and documents: exact ordinates at chosen or stepped positions.
 
 Example:
-    >>> from influence.beamform import simple_beam
-    >>> from influence.lines import influence_line
-    >>> from influence.responses import Response
+    >>> from influence.model.beamform import simple_beam
+    >>> from influence.analysis.lines import influence_line
+    >>> from influence.analysis.responses import Response
     >>> line = influence_line(simple_beam(8.0), Response("shear", "2"))
     >>> positions(line, step=4.0).tolist()
     [0.0, 2.0, 2.0, 4.0, 8.0]
@@ -15,9 +15,9 @@ from typing import Any
 
 import numpy as np
 
-from influence.conventions import header_lines, ordinate_unit
-from influence.lines import NOISE, InfluenceLine
-from influence.output import Table
+from influence.analysis.lines import NOISE, InfluenceLine
+from influence.output.conventions import header_lines, ordinate_unit
+from influence.output.tables import Table
 from vehicles.units import labels
 
 DEFAULT_STEPS = 50

@@ -1,0 +1,2 @@
+"""From a model to exact influence lines: singularity terms, member laws, one factorisation,
+responses as weights, and the influence lines themselves."""

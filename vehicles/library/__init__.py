@@ -1,0 +1,1 @@
+"""The library of published load models and the files users write: reading, writing, adjusting."""
