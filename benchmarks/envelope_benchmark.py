@@ -14,7 +14,7 @@ HL-93 in kN and m (truck with its 4.3-9.1 m rear gap, tandem, and the 90 % truck
 3-8 m apart.
 
 Exact: one factorisation, the influence lines of every section (exact piecewise cubics) and
-``vehicles.batch.govern_many``.
+``vehicles.search.govern.govern_many``.
 
 Baseline, written as a general finite-element moving-load program does it: for every position
 of a unit load at a ``--step`` spacing the girder (meshed with a node at every section and
@@ -66,7 +66,7 @@ from influence.analysis.lines import analyse_model  # noqa: E402
 from influence.analysis.responses import Response  # noqa: E402
 from influence.model.beamform import continuous_beam  # noqa: E402
 from vehicles import Axle, LoadCase, LoadModel, Train, get_model  # noqa: E402
-from vehicles.batch import govern_many  # noqa: E402
+from vehicles.search.govern import govern_many  # noqa: E402
 
 SPANS = (30.0, 40.0, 50.0, 40.0, 30.0)  # [m]
 EI = 2.0e7  # [kN m2]
@@ -104,7 +104,7 @@ def exact_envelope(count: int, models: list[LoadModel]) -> tuple[np.ndarray, np.
     chainages = section_chainages(count)
     responses = [Response(kind, repr(float(x))) for kind in KINDS for x in chainages]
     lines = analysis.lines(responses)
-    found = govern_many([line.ppoly for line in lines], models,
+    found = govern_many([line.function for line in lines], models,
                         kinds=[line.response.kind for line in lines],
                         interiors=[line.scope_interior for line in lines],
                         sections=[line.section_chainage for line in lines])
@@ -264,7 +264,7 @@ def _case_extreme(sampled: np.ndarray, step: float, case: LoadCase, kind: str, s
     train = case.train
     if train is None:
         return sign * constant
-    ranges = train.ranges
+    ranges = train.ranged_values
     grids = [_gap_grid(r.low, min(r.high, sum(SPANS) + 1.0), gap_step) for r in ranges]
     widest = train.arranged([g[-1] for g in grids])
     clear = float(case.lane_clear_of_train or 0.0)

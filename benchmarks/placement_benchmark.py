@@ -28,7 +28,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
 from tests.influence_forms import continuous_moment, continuous_reaction  # noqa: E402
 from vehicles.loadmodel import LoadCase, LoadModel  # noqa: E402
-from vehicles.placement import govern  # noqa: E402
+from vehicles.search.govern import govern  # noqa: E402
 from vehicles.train import Axle, Patch, Train  # noqa: E402
 
 SPANS = (30.0, 40.0, 40.0, 40.0, 30.0)  # [m]
@@ -63,7 +63,7 @@ def brute_force(line, case: LoadCase, steps: int) -> tuple[float, float]:
     """(max, min) by stepping the lead position; every gap of a grid for a ranged train."""
     train = case.train
     assert train is not None
-    ranges = train.ranges
+    ranges = train.ranged_values
     gap_values = np.linspace(ranges[0].low, ranges[0].high, GAP_GRID) if ranges else [None]
     area = line.antiderivative()
     start, end = line.x[0], line.x[-1]

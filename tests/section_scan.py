@@ -8,7 +8,8 @@ import numpy as np
 
 from tests.influence_forms import simple_moment
 from vehicles.loadmodel import LoadCase, LoadModel
-from vehicles.placement import Placement, govern
+from vehicles.search.govern import govern
+from vehicles.search.placement import Placement
 from vehicles.train import Axle, Train
 
 

@@ -18,8 +18,7 @@ from influence.analysis.responses import Response
 from influence.model.beamform import continuous_beam
 from tests.influence_forms import simple_moment, simple_shear
 from vehicles import LoadCase, LoadModel, Scope, VehicleError, get_model
-from vehicles.batch import govern_many
-from vehicles.placement import govern
+from vehicles.search.govern import govern, govern_many
 from vehicles.train import Axle, Patch, Train
 
 SPANS = (12.0, 16.0, 12.0)  # [m]

@@ -23,7 +23,7 @@ def test_govern_json_carries_the_documented_fields(tmp_path: Path) -> None:
         assert key in document
     best = document["max"]
     for key in ("value", "vehicle", "case", "direction", "lead_position", "axle_positions",
-                "gaps", "lane_segments", "concurrent"):
+                "ranged_values", "lane_segments", "concurrent"):
         assert key in best
     assert best["vehicle"] == "HL-93" and best["concurrent"][0]["response"] == "reaction"
     assert "converted from kip-ft to kN-m" in document["notes"][0]

@@ -10,8 +10,8 @@ import pytest
 
 from tests.influence_forms import X, continuous_moment, polynomial_line, simple_moment, simple_shear
 from tests.section_scan import axle_train, one_case
-from vehicles.concurrent import concurrent
-from vehicles.placement import govern
+from vehicles.search.concurrent import concurrent
+from vehicles.search.govern import govern
 from vehicles.train import Axle, Patch, Train
 
 EXACT = 1e-9

@@ -12,9 +12,10 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from tests.influence_forms import continuous_moment, simple_moment, simple_reaction
-from vehicles.effect import effect_function, prepare
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadCase
+from vehicles.search.effects import effect_function
+from vehicles.search.prepared import prepare
 from vehicles.train import Axle, Patch, Train
 
 EXACT = 1e-9
@@ -93,8 +94,8 @@ def test_lane_load_is_intensity_times_adverse_area():
     assert top.ppoly()(50.0) == pytest.approx(9.0 * positive, rel=1e-8)
     assert bottom.ppoly()(50.0) == pytest.approx(9.0 * negative, rel=1e-8)
     # the parts add up to the whole integral exactly
-    prepared = prepare(LINE)
-    assert prepared.positive_area + prepared.negative_area == pytest.approx(
+    prepared = prepare([LINE])
+    assert prepared.positive_areas[0] + prepared.negative_areas[0] == pytest.approx(
         LINE.integrate(0.0, 100.0), rel=EXACT)
 
 
@@ -134,9 +135,8 @@ def test_an_axle_on_a_jump_has_both_limits():
     E = 0 just before and P just after (the two one-sided limits)."""
     effect = effect_function(simple_reaction(10.0), LoadCase("a", Train("a", (Axle(7.0),))),
                              kind="reaction", sense="max", direction="forward")
-    pieces = effect.pieces
-    assert pieces.values_at(np.array([0.0]), side="left")[0] == 0.0
-    assert pieces.values_at(np.array([0.0]), side="right")[0] == pytest.approx(7.0, rel=EXACT)
+    assert effect.values([0.0], side="left")[0] == 0.0
+    assert effect.values([0.0], side="right")[0] == pytest.approx(7.0, rel=EXACT)
 
 
 def test_unknown_direction_is_a_clear_error():

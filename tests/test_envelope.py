@@ -14,7 +14,7 @@ from influence.errors import ModelError
 from influence.model.basis import Combination, DeadLoad, DesignBasis, LiveLoadSettings, read_design
 from influence.model.beamform import continuous_beam
 from vehicles.loadmodel import LoadCase, LoadModel
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 from vehicles.train import Axle, Train
 
 TRUCK = LoadModel("test truck", "two axles and a lane", "kN-m", (

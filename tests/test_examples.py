@@ -67,7 +67,7 @@ def test_crane_pair_on_a_simple_span_follows_the_two_load_rule() -> None:
     # (P/2L)(L - a/2)^2. Here on a 40 ft simple span, P = 31.5 kip x 1.25 impact, a = 11.5 ft.
     from influence.model.beamform import simple_beam
     from vehicles.library.catalog import load_model
-    from vehicles.placement import govern
+    from vehicles.search.govern import govern
 
     crane = load_model(by_vehicle("crane-pair"))
     analysis = analyse_model(simple_beam(40.0, units="kip-ft"))

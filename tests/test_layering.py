@@ -13,8 +13,9 @@ ROOT = Path(__file__).resolve().parent.parent
 def test_computation_does_not_import_matplotlib() -> None:
     code = ("import sys\n"
             "import influence.design.envelope, influence.design.governing, influence.cli\n"
-            "import vehicles.batch\n"
-            "import vehicles.library.catalog, vehicles.sweep, vehicles.concurrent\n"
+            "import vehicles.search.govern\n"
+            "import vehicles.library.catalog, vehicles.search.sweep\n"
+            "import vehicles.search.concurrent, piecewise\n"
             "print('matplotlib' in sys.modules)")
     result = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True,
                             cwd=ROOT, check=True)

@@ -24,7 +24,7 @@ from tests.influence_forms import (
 from tests.section_scan import axle_train, one_case
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadCase, LoadModel, Scope
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 from vehicles.train import Axle, Patch, Train
 
 EXACT = 1e-9
@@ -89,15 +89,15 @@ def test_ranged_gap_is_optimised_and_reported():
     train = Train("pair", (Axle(P), Axle(P, (2.0, 30.0))))
     best = govern(SUPPORT_MOMENT, one_case(train), kind="moment").min
     assert best.value == pytest.approx(2 * P * PEAK_ORDINATE, rel=1e-12)
-    assert best.gaps[0].value == pytest.approx(2 * L - 2 * L / math.sqrt(3), rel=1e-9)
-    assert (best.gaps[0].low, best.gaps[0].high) == (2.0, 30.0)
+    assert best.ranged_values[0].value == pytest.approx(2 * L - 2 * L / math.sqrt(3), rel=1e-9)
+    assert (best.ranged_values[0].low, best.ranged_values[0].high) == (2.0, 30.0)
 
 
 def test_several_ranges_beat_every_fixed_choice_on_a_grid():
     """Two ranged gaps (numeric search): no fixed pair of gaps on a grid does better."""
     line = continuous_moment([L, 1.2 * L, L], 1.6 * L)
     train = Train("three", (Axle(60.0), Axle(100.0, (3.0, 25.0)), Axle(40.0, (3.0, 25.0))))
-    found = govern(line, one_case(train), kind="moment", gap_tolerance=1e-5)
+    found = govern(line, one_case(train), kind="moment", ranged_tolerance=1e-5)
     grid = np.linspace(3.0, 25.0, 12)
     for sense, placement in (("max", found.max), ("min", found.min)):
         sign = 1.0 if sense == "max" else -1.0
@@ -113,7 +113,7 @@ def test_range_end_is_kept_when_it_governs():
     the range minimum is used (AASHTO truck rear spacing 14-30 ft; common practice)."""
     truck = Train("truck", (Axle(8.0), Axle(32.0, 14.0), Axle(32.0, (14.0, 30.0))))
     result = govern(simple_moment(100.0, 50.0), one_case(truck, units="kip-ft"), kind="moment")
-    assert result.max.gaps[0].value == 14.0
+    assert result.max.ranged_values[0].value == 14.0
 
 
 def test_shear_at_the_section_takes_the_worse_limit_and_says_so():

@@ -23,10 +23,10 @@ import pytest
 
 from tests.influence_forms import continuous_moment
 from vehicles import Axle, LoadCase, LoadModel, Train, VehicleError
-from vehicles.concurrent import concurrent
-from vehicles.library.files import parse_model
+from vehicles.library.files import parse_load_model
 from vehicles.library.writer import model_to_toml
-from vehicles.placement import govern
+from vehicles.search.concurrent import concurrent
+from vehicles.search.govern import govern
 
 L = 10.0  # [m] each span
 HEAVY, LIGHT, SPACING = 100.0, 60.0, 12.0  # [kN], [kN], [m]; SPACING > L
@@ -68,8 +68,8 @@ def test_smallest_moment_neglects_the_axle_on_the_loaded_span() -> None:
 def test_the_flag_is_read_and_written_by_name() -> None:
     text = model_to_toml(_model(True))
     assert "neglect_relieving_axles = true" in text
-    assert parse_model(text).cases[0].neglect_relieving_axles
+    assert parse_load_model(text).cases[0].neglect_relieving_axles
     assert "neglect_relieving_axles" not in model_to_toml(_model(False))
     with pytest.raises(VehicleError, match="neglect_relieving_axles.*true or false"):
-        parse_model(text.replace("neglect_relieving_axles = true",
+        parse_load_model(text.replace("neglect_relieving_axles = true",
                                  'neglect_relieving_axles = "yes"'))

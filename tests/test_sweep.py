@@ -8,8 +8,8 @@ import pytest
 from tests.influence_forms import continuous_moment, simple_reaction, simple_shear
 from tests.section_scan import axle_train
 from vehicles.loadmodel import LoadCase, LoadModel
-from vehicles.placement import govern
-from vehicles.sweep import sweep, sweeps
+from vehicles.search.govern import govern
+from vehicles.search.sweep import sweep, sweeps
 from vehicles.train import Axle, Train
 
 EXACT = 1e-9
@@ -26,7 +26,7 @@ def test_table_values_are_the_direct_sum_of_axle_effects():
     positions = middle[:, None] - offsets[None, :]
     on = (positions >= 0) & (positions <= sum(SPANS))
     direct = (loads * np.where(on, LINE(np.clip(positions, 0, sum(SPANS))), 0.0)).sum(axis=1)
-    assert np.allclose(result.effect(middle), direct, rtol=EXACT, atol=1e-7)
+    assert np.allclose(result.effect.values(middle), direct, rtol=EXACT, atol=1e-7)
 
 
 def test_table_runs_from_entry_to_exit_and_holds_every_breakpoint():
@@ -64,12 +64,12 @@ def test_governing_maximum_is_the_sweep_maximum():
     best = govern(LINE, model, kind="moment", directions=("reverse",)).max
     result = sweep(LINE, CASE, "reverse", kind="moment", step=0.25)
     assert best.value >= result.values.max() - EXACT * abs(best.value)
-    assert float(result.effect(best.lead_position)) == pytest.approx(best.value, rel=EXACT)
+    assert float(result.effect.values(best.lead_position)[0]) == pytest.approx(best.value, rel=EXACT)
 
 
 def test_ranged_gap_defaults_to_the_governing_value():
     train = Train("pair", (Axle(10.0), Axle(10.0, (2.0, 40.0))))
     hogging = continuous_moment((25.0, 25.0), 25.0)  # equal spans: one axle in each is worst
     result = sweep(hogging, LoadCase("pair", train), "forward", kind="moment", sense="min")
-    assert 2.0 < result.choices[0] < 40.0  # one axle in each span
+    assert 2.0 < result.ranged_values[0].value < 40.0  # one axle in each span
     assert result.sense == "min"

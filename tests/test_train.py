@@ -22,11 +22,11 @@ TRUCK = Train("design truck", (Axle(8.0), Axle(32.0, 14.0), Axle(32.0, (14.0, 30
 
 
 def test_ranged_gap_is_chosen_and_clipped() -> None:
-    (choice,) = TRUCK.ranges
+    (choice,) = TRUCK.ranged_values
     assert (choice.item, choice.attribute, choice.low, choice.high) == (2, "gap", 14.0, 30.0)
     assert TRUCK.arranged().axle_offsets.tolist() == [0.0, 14.0, 28.0]  # minimum by default
     assert TRUCK.arranged([22.5]).axle_offsets.tolist() == [0.0, 14.0, 36.5]
-    assert TRUCK.arranged([99.0]).choices == (30.0,)  # clipped to the range
+    assert TRUCK.arranged([99.0]).values == (30.0,)  # clipped to the range
     assert TRUCK.length([30.0]) == 44.0
 
 
@@ -38,7 +38,7 @@ def test_wrong_number_of_choices_is_an_error() -> None:
 def test_headway_range_joins_two_trucks() -> None:
     fixed = Train("truck", (Axle(8.0), Axle(32.0, 14.0), Axle(32.0, 14.0)))
     pair = fixed.followed_by(fixed, (50.0, 200.0))
-    assert [r.item for r in pair.ranges] == [3]
+    assert [r.item for r in pair.ranged_values] == [3]
     offsets = pair.arranged([75.0]).axle_offsets
     assert offsets.tolist() == [0.0, 14.0, 28.0, 103.0, 117.0, 131.0]
     assert pair.total_load() == 2 * (8.0 + 32.0 + 32.0)

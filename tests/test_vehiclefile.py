@@ -15,7 +15,7 @@ from hypothesis import strategies as st
 
 from vehicles import Axle, LoadCase, LoadModel, Patch, Scope, Train, VehicleError
 from vehicles.library.catalog import library_models
-from vehicles.library.files import parse_model, read_model
+from vehicles.library.files import parse_load_model, read_load_model
 from vehicles.library.writer import model_to_toml, write_model
 
 EXACT = 1e-12
@@ -35,7 +35,7 @@ lane = 9.3
 def test_the_example_vehicle_file(tmp_path: Path) -> None:
     path = tmp_path / "hauler.toml"
     path.write_text(HAULER)
-    model = read_model(path)
+    model = read_load_model(path)
     (case,) = model.cases
     assert model.units == "kN-m" and model.name == "quarry hauler, 6 axles"
     assert case.train is not None
@@ -46,7 +46,7 @@ def test_the_example_vehicle_file(tmp_path: Path) -> None:
 
 
 def test_a_lane_alone_is_a_load() -> None:
-    model = parse_model('[vehicle]\nname = "lane"\nunits = "kip-ft"\nlane = 0.64\n')
+    model = parse_load_model('[vehicle]\nname = "lane"\nunits = "kip-ft"\nlane = 0.64\n')
     assert model.cases[0].train is None and model.cases[0].lane == 0.64
 
 
@@ -60,7 +60,7 @@ def test_patches_in_the_vehicle_form() -> None:
     leading_uniform = { intensity = 50, length = [10, 30], gap = 1.5 }
     trailing_uniform = { intensity = 60, gap = 2.5 }
     """
-    train = parse_model(text).cases[0].train
+    train = parse_load_model(text).cases[0].train
     assert train is not None
     assert train.items[0] == Patch(50.0, (10.0, 30.0))
     assert train.items[1] == Axle(200.0, 1.5)
@@ -104,8 +104,8 @@ loads = [20]
 
 
 def test_a_model_file_with_references_headways_and_items() -> None:
-    pair, blocks, own = parse_model(MODEL, "demo.toml").cases
-    assert pair.train is not None and pair.train.ranges[0].low == 50.0
+    pair, blocks, own = parse_load_model(MODEL, "demo.toml").cases
+    assert pair.train is not None and pair.train.ranged_values[0].low == 50.0
     assert pair.train.total_load() == 2 * 72.0 and pair.factor == 0.9
     assert pair.scope == Scope(("negative moment", "interior reaction"))
     assert blocks.train is not None
@@ -138,20 +138,20 @@ BAD_INPUTS = [
 @pytest.mark.parametrize(("text", "pattern"), BAD_INPUTS)
 def test_bad_input_is_one_line_naming_the_file(text: str, pattern: str) -> None:
     with pytest.raises(VehicleError, match=pattern) as caught:
-        parse_model(text, "bad.toml")
+        parse_load_model(text, "bad.toml")
     message = str(caught.value)
     assert message.startswith("bad.toml: ") and "\n" not in message
 
 
 def test_missing_file_is_a_vehicle_error(tmp_path: Path) -> None:
     with pytest.raises(VehicleError, match="cannot read"):
-        read_model(tmp_path / "absent.toml")
+        read_load_model(tmp_path / "absent.toml")
 
 
 def test_every_library_model_round_trips(tmp_path: Path) -> None:
     for model in (*library_models(), *library_models("kN-m"), *library_models("kip-ft")):
         path = write_model(model, tmp_path / "model.toml")
-        assert read_model(path) == model, model.name
+        assert read_load_model(path) == model, model.name
     assert [p.name for p in tmp_path.iterdir()] == ["model.toml"]  # no temporary left behind
 
 
@@ -196,14 +196,14 @@ def models(draw: st.DrawFn) -> LoadModel:
 @settings(max_examples=60, deadline=None)
 @given(models())
 def test_generated_models_round_trip_through_the_file_format(model: LoadModel) -> None:
-    assert parse_model(model_to_toml(model)) == model
+    assert parse_load_model(model_to_toml(model)) == model
 
 
 @settings(max_examples=40, deadline=None)
 @given(trains())
 def test_generated_trains_keep_their_totals_through_the_file_format(train: Train) -> None:
     model = LoadModel("t", "t", "kN-m", (LoadCase("c", train),))
-    back = parse_model(model_to_toml(model)).cases[0].train
+    back = parse_load_model(model_to_toml(model)).cases[0].train
     assert back is not None
     total, again = train.total_load(), back.total_load()
     assert total == again or (math.isinf(total) and math.isinf(again))

@@ -10,15 +10,15 @@ Example:
     [0.0, 4.2672, 13.2672]
 """
 
-from vehicles.batch import govern_many
 from vehicles.errors import VehicleError
 from vehicles.library.adjust import adjusted
 from vehicles.library.catalog import get_model, library_names, load_model
-from vehicles.library.files import read_model
+from vehicles.library.files import read_load_model
 from vehicles.library.writer import write_model
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
-from vehicles.placement import Governing, Placement, govern
-from vehicles.sweep import sweep
+from vehicles.search.govern import Governing, govern, govern_many
+from vehicles.search.placement import Placement
+from vehicles.search.sweep import sweep
 from vehicles.train import Arrangement, Axle, Patch, Train
 from vehicles.units import model_in
 
@@ -41,7 +41,7 @@ __all__ = [
     "library_names",
     "load_model",
     "model_in",
-    "read_model",
+    "read_load_model",
     "sweep",
     "write_model",
 ]

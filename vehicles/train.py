@@ -100,13 +100,27 @@ Item = Axle | Patch
 
 
 @dataclass(frozen=True)
-class Choice:
-    """One ranged quantity of a train: which item, which attribute, and its bounds [length]."""
+class RangedValue:
+    """A ranged gap or length of a train: which item, which attribute, its bounds and, once
+    the placement search has chosen it, the value used [length].
+
+    Attributes:
+        item: index of the train item (0 = the first) whose gap or length it is.
+        attribute: "gap" or "length".
+        low, high: the range [length].
+        value: the value used [length]; None on the train itself, where nothing is chosen yet.
+    """
 
     item: int
-    attribute: str  # "gap" or "length"
+    attribute: str
     low: float
     high: float
+    value: float | None = None
+
+    def at(self, value: float) -> RangedValue:
+        """The same range with ``value`` chosen (clipped to the range)."""
+        return RangedValue(self.item, self.attribute, self.low, self.high,
+                           min(max(float(value), self.low), self.high))
 
 
 @dataclass(frozen=True)
@@ -122,7 +136,12 @@ class Arrangement:
     patch_starts: np.ndarray
     patch_ends: np.ndarray
     patch_intensities: np.ndarray
-    choices: tuple[float, ...] = field(default=())
+    ranged_values: tuple[RangedValue, ...] = field(default=())
+
+    @property
+    def values(self) -> tuple[float, ...]:
+        """The chosen value of every ranged gap or length, in order [length]."""
+        return tuple(float(r.value) for r in self.ranged_values if r.value is not None)
 
     @property
     def extent(self) -> tuple[float, float]:
@@ -161,29 +180,30 @@ class Train:
                 )
 
     @property
-    def ranges(self) -> tuple[Choice, ...]:
+    def ranged_values(self) -> tuple[RangedValue, ...]:
         """Every ranged gap or length, in item order (the first item's gap is ignored)."""
         found = []
         for index, item in enumerate(self.items):
             if index > 0 and isinstance(item.gap, tuple):
-                found.append(Choice(index, "gap", *item.gap))
+                found.append(RangedValue(index, "gap", *item.gap))
             if isinstance(item, Patch) and isinstance(item.length, tuple):
-                found.append(Choice(index, "length", *item.length))
+                found.append(RangedValue(index, "length", *item.length))
         return tuple(found)
 
     @property
     def axle_count(self) -> int:
         return sum(isinstance(item, Axle) for item in self.items)
 
-    def arranged(self, choices: Sequence[float] | None = None) -> Arrangement:
+    def arranged(self, ranged_values: Sequence[float] | None = None) -> Arrangement:
         """Fix every range and return the arrays.
 
         Args:
-            choices: one value per entry of :attr:`ranges`, in order [length]; default each
-                range's minimum. Values are clipped to their range.
+            ranged_values: one value per entry of :attr:`ranged_values`, in order [length];
+                default each range's minimum. Values are clipped to their range.
         """
-        ranges = self.ranges
-        values = [r.low for r in ranges] if choices is None else [float(c) for c in choices]
+        ranges = self.ranged_values
+        values = ([r.low for r in ranges] if ranged_values is None
+                  else [float(c) for c in ranged_values])
         if len(values) != len(ranges):
             raise VehicleError(
                 f"{len(values)} values given for {len(ranges)} ranged gaps or lengths",
@@ -234,7 +254,7 @@ class Train:
             patch_starts=np.asarray(starts, dtype=float),
             patch_ends=np.asarray(ends, dtype=float),
             patch_intensities=np.asarray(intensities, dtype=float),
-            choices=tuple(chosen[(r.item, r.attribute)] for r in ranges),
+            ranged_values=tuple(r.at(chosen[(r.item, r.attribute)]) for r in ranges),
         )
 
     def reversed(self) -> Train:
@@ -264,27 +284,27 @@ class Train:
         joined = (*self.items, _with_gap(first, headway), *rest)
         return Train(name or f"{self.name} + {other.name}", joined)
 
-    def total_load(self, choices: Sequence[float] | None = None) -> float:
+    def total_load(self, ranged_values: Sequence[float] | None = None) -> float:
         """Sum of axle loads and patch loads [force]; infinite with an unlimited patch."""
-        a = self.arranged(choices)
+        a = self.arranged(ranged_values)
         patches = a.patch_intensities * (a.patch_ends - a.patch_starts)
         return float(a.axle_loads.sum() + patches.sum())
 
-    def length(self, choices: Sequence[float] | None = None) -> float:
+    def length(self, ranged_values: Sequence[float] | None = None) -> float:
         """Distance from the front of the first item to the rear of the last [length]."""
-        front, rear = self.arranged(choices).extent
+        front, rear = self.arranged(ranged_values).extent
         return rear - front
 
-    def centroid(self, choices: Sequence[float] | None = None) -> float:
+    def centroid(self, ranged_values: Sequence[float] | None = None) -> float:
         """Offset of the resultant behind the reference point [length] (finite trains only)."""
-        a = self.arranged(choices)
+        a = self.arranged(ranged_values)
         lengths = a.patch_ends - a.patch_starts
         if not np.all(np.isfinite(lengths)):
             raise VehicleError("an unlimited train has no centroid", item=self.name)
         moment = (a.axle_loads * a.axle_offsets).sum() + (
             a.patch_intensities * lengths * (a.patch_starts + a.patch_ends) / 2
         ).sum()
-        return float(moment / self.total_load(choices))
+        return float(moment / self.total_load(ranged_values))
 
 
 def _with_gap(item: Item, gap: Span) -> Item:

@@ -19,41 +19,17 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from functools import cached_property
-from typing import Literal
+from typing import Any
 
 import numpy as np
-from numpy.polynomial import polynomial as P
-from scipy.interpolate import PPoly
 
 from influence.analysis.responses import Extraction, Response, resolve_many
 from influence.analysis.singularity import TERMS, substitute
 from influence.analysis.solve import Structure, analyse
 from influence.model.path import PathGeometry, trace
 from influence.model.structure import Model
-
-NOISE = 1e-14
-"""A term of a piece smaller than this fraction [-] of the line's largest term is round-off of the
-solve (a reaction line that should end at exactly zero, say) and is set to zero."""
-
-SNAP = 1e-12
-"""Relative distance [-] within which a load chainage is taken to stand on a breakpoint."""
-
-ROOT_TOLERANCE = 1e-12
-"""Imaginary part [-] (relative) below which a polynomial root is taken as real."""
-
-
-@dataclass(frozen=True)
-class Extreme:
-    """An extreme ordinate and the load chainage [length] where it occurs."""
-
-    value: float
-    at: float
-
-
-@dataclass(frozen=True)
-class Extremes:
-    largest: Extreme
-    smallest: Extreme
+from piecewise import Batch, Extremes, Piecewise
+from piecewise.tolerances import NOISE, POSITION
 
 
 @dataclass(frozen=True)
@@ -62,29 +38,48 @@ class InfluenceLine:
 
     Attributes:
         response: what it measures and where.
-        breakpoints: piece boundaries [length], ascending, from 0 to the path length.
-        coefficients: one row per piece, polynomial in (chainage - piece start), lowest power
-            first, ordinates per unit load.
+        function: the exact piecewise polynomial in path chainage [length], ordinates per unit
+            load, zero off the path.
         section_chainage: where the section (or support) sits on the path, if it does.
         interior_support: the response is a reaction at a support that is not a path end.
         units: "kN-m" or "kip-ft".
+        scope_interior: whether the response lies in the interior region a load case's scope
+            may name: a reaction at a support that is not a path end, or a moment where a
+            uniform load on the whole path hogs (the line's net area is negative), that is
+            between the points of contraflexure around an interior support.
     """
 
     response: Response
-    breakpoints: np.ndarray
-    coefficients: np.ndarray
+    function: Piecewise
     section_chainage: float | None = None
     interior_support: bool = False
     units: str = "kN-m"
+    scope_interior: bool = False
+
+    @property
+    def breakpoints(self) -> np.ndarray:
+        """Piece boundaries [length], ascending, from 0 to the path length."""
+        return self.function.breaks
+
+    @property
+    def coefficients(self) -> np.ndarray:
+        """One row per piece, polynomial in (chainage - piece start), lowest power first."""
+        return self.function.coeffs.T
 
     @cached_property
-    def ppoly(self) -> PPoly:
-        """The line as scipy's PPoly (highest power first), zero outside the path."""
-        return PPoly(self.coefficients[:, ::-1].T.copy(), self.breakpoints, extrapolate=False)
+    def ppoly(self) -> Any:
+        """The line as scipy's PPoly (highest power first), NaN outside the path: an export
+        for users (scipy is imported only when asked)."""
+        return self.function.to_ppoly()
 
     @property
     def length(self) -> float:
-        return float(self.breakpoints[-1] - self.breakpoints[0])
+        return self.function.length
+
+    @property
+    def scale(self) -> float:
+        """The largest term of any piece: the size of the line's ordinates."""
+        return self.function.scale
 
     def values(self, positions: np.ndarray | list[float], side: str = "right") -> np.ndarray:
         """Ordinates at load chainages; at a jump ``side`` picks the left or right limit.
@@ -100,60 +95,21 @@ class InfluenceLine:
             >>> float(shear.values([0.0])[0]), float(shear.values([10.0])[0])
             (0.0, 0.0)
         """
-        x = np.atleast_1d(np.asarray(positions, dtype=float))
-        # a chainage within round-off of a breakpoint is that breakpoint (so sides are honoured)
-        nearest = np.clip(np.searchsorted(self.breakpoints, x), 1, len(self.breakpoints) - 1)
-        for candidate in (nearest - 1, nearest):
-            snap = np.abs(x - self.breakpoints[candidate]) <= SNAP * max(self.length, 1.0)
-            x = np.where(snap, self.breakpoints[candidate], x)
-        rule: Literal["left", "right"] = "left" if side == "left" else "right"
-        pieces = np.searchsorted(self.breakpoints, x, side=rule) - 1
-        pieces = np.clip(pieces, 0, len(self.coefficients) - 1)
-        local = x - self.breakpoints[pieces]
-        result = P.polyval(local, self.coefficients[pieces].T, tensor=False)
-        outside = (x < self.breakpoints[0]) | (x > self.breakpoints[-1])
-        return np.where(outside | (np.abs(result) < NOISE * self.scale), 0.0, result)
-
-    @cached_property
-    def scale(self) -> float:
-        """The largest term of any piece: the size of the line's ordinates."""
-        widths = np.diff(self.breakpoints)[:, None] ** np.arange(TERMS)
-        return float((np.abs(self.coefficients) * widths).max(initial=0.0))
+        values = self.function.values(positions, side)
+        # round-off of the solve (a reaction line ending at 1e-16) reads as zero
+        return np.where(np.abs(values) < NOISE * self.scale, 0.0, values)
 
     def limits(self) -> tuple[np.ndarray, np.ndarray]:
         """Left and right limits at every breakpoint (zero beyond the path ends)."""
-        widths = np.diff(self.breakpoints)
-        ends = P.polyval(widths, self.coefficients.T, tensor=False)
-        ends = np.where(np.abs(ends) < NOISE * self.scale, 0.0, ends)
-        starts = self.coefficients[:, 0]
-        left = np.concatenate([[0.0], ends])
-        right = np.concatenate([starts, [0.0]])
-        return left, right
+        return self.function.limits()
 
-    def _candidates(self) -> tuple[np.ndarray, np.ndarray]:
-        """Every place an extreme can sit: both limits at breakpoints and stationary points."""
-        left, right = self.limits()
-        xs = [self.breakpoints, self.breakpoints]
-        vs = [left, right]
-        for x, value in self._stationary_points():
-            xs.append(np.array([x]))
-            vs.append(np.array([value]))
-        return np.concatenate(xs), np.concatenate(vs)
-
-    def _stationary_points(self) -> list[tuple[float, float]]:
-        found = []
-        for start, width, row in zip(self.breakpoints, np.diff(self.breakpoints),
-                                     self.coefficients, strict=False):
-            for t in _real_roots_in(P.polyder(row), width):
-                found.append((start + t, float(P.polyval(t, row))))
-        return found
+    def jumps(self) -> np.ndarray:
+        """Chainages where the line jumps [length]."""
+        return self.function.jumps()
 
     def extremes(self) -> Extremes:
         """Largest and smallest ordinates (limits at jumps included) and where."""
-        x, v = self._candidates()
-        high, low = int(np.argmax(v)), int(np.argmin(v))
-        return Extremes(Extreme(float(v[high]), float(x[high])),
-                        Extreme(float(v[low]), float(x[low])))
+        return self.function.extremes()
 
     def zero_crossings(self) -> np.ndarray:
         """Chainages where the line changes sign [length]: roots inside pieces, and breakpoints
@@ -168,69 +124,16 @@ class InfluenceLine:
             >>> influence_line(beam, Response("moment", "5")).zero_crossings().tolist()
             [10.0]
         """
-        points = [self.breakpoints]
-        for start, width, row in zip(self.breakpoints, np.diff(self.breakpoints),
-                                     self.coefficients, strict=False):
-            points.append(start + np.array(_real_roots_in(row, width)))
-        edges = np.unique(np.concatenate(points))
-        middles = (edges[:-1] + edges[1:]) / 2
-        signs = np.sign(self.values(middles))  # round-off below NOISE already reads as zero
-        crossings = []
-        previous = 0.0
-        for where, sign in zip(edges[:-1], signs, strict=True):
-            if sign == 0:
-                continue
-            if previous and sign != previous:
-                crossings.append(float(where))
-            previous = sign
-        return np.array(crossings, dtype=float)
-
-    @cached_property
-    def scope_interior(self) -> bool:
-        """Whether the response lies in the interior region a load case's scope may name: a
-        reaction at a support that is not a path end, or a moment where a uniform load on the
-        whole path hogs (its line's net area is negative), that is between the points of
-        contraflexure around an interior support."""
-        if self.response.kind == "reaction":
-            return self.interior_support
-        if self.response.kind == "moment":
-            positive, negative = self.areas()
-            return positive + negative < -NOISE * self.scale * self.length
-        return False
+        return self.function.zero_crossings()
 
     def integral(self, start: float, end: float) -> float:
         """Exact area under the line between two chainages [ordinate * length] (zero off the
         path): the effect of a unit uniform load over that stretch."""
-        lo = max(min(start, end), float(self.breakpoints[0]))
-        hi = min(max(start, end), float(self.breakpoints[-1]))
-        if hi <= lo:
-            return 0.0
-        return float(self.ppoly.integrate(lo, hi))
+        return self.function.integral(start, end)
 
     def areas(self) -> tuple[float, float]:
         """(positive area, negative area) under the line [ordinate * length], exact."""
-        positive = negative = 0.0
-        for _, width, row in zip(self.breakpoints, np.diff(self.breakpoints), self.coefficients,
-                                 strict=False):
-            cuts = [0.0, *sorted(_real_roots_in(row, width)), width]
-            integral = P.polyint(row)
-            for lo, hi in zip(cuts, cuts[1:], strict=False):
-                part = float(P.polyval(hi, integral) - P.polyval(lo, integral))
-                if part > 0:
-                    positive += part
-                else:
-                    negative += part
-        return positive, negative
-
-
-def _real_roots_in(row: np.ndarray, width: float) -> list[float]:
-    """Real roots of a polynomial (lowest power first) strictly inside (0, width)."""
-    trimmed = np.trim_zeros(np.asarray(row, dtype=float), "b")
-    if len(trimmed) < 2:
-        return []
-    roots = P.polyroots(trimmed)
-    real = roots[np.abs(roots.imag) <= ROOT_TOLERANCE * np.maximum(1.0, np.abs(roots))].real
-    return sorted(float(t) for t in real if 0.0 < t < width)
+        return self.function.areas()
 
 
 @dataclass(frozen=True)
@@ -252,8 +155,21 @@ class Analysis:
         in_member = [weights[:, used] @ loads for used, loads, _ in self._leg_terms]
         in_chainage = [base @ change for base, (_, _, change) in
                        zip(in_member, self._leg_terms, strict=True)]
-        return [self._line(e, [b[i] for b in in_member], [c[i] for c in in_chainage])
-                for i, e in enumerate(extractions)]
+        pieces = [self._pieces(e, [b[i] for b in in_member], [c[i] for c in in_chainage])
+                  for i, e in enumerate(extractions)]
+        batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned()
+        # the interior region of a moment: a uniform load on the whole path hogs there
+        positive, negative = batch.areas()
+        hogging = positive + negative < -NOISE * batch.scales * batch.extents
+        return [InfluenceLine(
+            response=e.response,
+            function=Piecewise.from_batch(batch, i),
+            section_chainage=e.section_chainage,
+            interior_support=e.interior_support,
+            units=self.model.units,
+            scope_interior=(e.interior_support if e.response.kind == "reaction"
+                            else bool(hogging[i]) and e.response.kind == "moment"),
+        ) for i, e in enumerate(extractions)]
 
     def line(self, response: Response) -> InfluenceLine:
         return self.lines((response,))[0]
@@ -273,12 +189,13 @@ class Analysis:
             terms.append((dofs[used], frame.equivalent_loads[used], change))
         return terms
 
-    def _line(self, extraction: Extraction, in_member: list[np.ndarray],
-              in_chainage: list[np.ndarray]) -> InfluenceLine:
+    def _pieces(self, extraction: Extraction, in_member: list[np.ndarray],
+                in_chainage: list[np.ndarray]) -> tuple[np.ndarray, np.ndarray]:
+        """(breakpoints, coefficients (TERMS, pieces)) of one line, before cleaning."""
         breakpoints: list[float] = [0.0]
         rows: list[np.ndarray] = []
         section = extraction.section_chainage
-        tolerance = SNAP * self.path.total_length
+        tolerance = POSITION * max(self.path.total_length, 1.0)
         for index, leg in enumerate(self.path.legs):
             if extraction.own_member != leg.member or extraction.own_rules is None:
                 rows.append(in_chainage[index])
@@ -306,21 +223,7 @@ class Analysis:
                 if section is not None and abs(end - section) <= tolerance:
                     end = section  # the section's own chainage, not a sum that differs by an ulp
                 breakpoints.append(end)
-        edges = np.array(breakpoints)
-        return InfluenceLine(
-            response=extraction.response,
-            breakpoints=edges,
-            coefficients=_without_noise(np.array(rows).reshape(-1, TERMS), np.diff(edges)),
-            section_chainage=extraction.section_chainage,
-            interior_support=extraction.interior_support,
-            units=self.model.units,
-        )
-
-
-def _without_noise(rows: np.ndarray, widths: np.ndarray) -> np.ndarray:
-    reach = np.abs(rows) * widths[:, None] ** np.arange(TERMS)
-    scale = reach.max(initial=0.0)
-    return np.where(reach < NOISE * scale, 0.0, rows)
+        return np.array(breakpoints), np.array(rows).reshape(-1, TERMS).T
 
 
 def _in_travel_order(pieces: list[tuple[float, float, np.ndarray]], against: bool,

@@ -29,6 +29,8 @@ import math
 import numpy as np
 from numpy.polynomial import polynomial as P
 
+from piecewise.polynomial import taylor_shift
+
 TERMS = 4
 """Coefficients kept per polynomial in the load position (degree 3 at most)."""
 
@@ -71,10 +73,5 @@ def substitute(coefficients: np.ndarray, offset: float, scale: float) -> np.ndar
         >>> substitute(np.array([0.0, 0.0, 1.0, 0.0]), 1.0, -1.0).tolist()   # (1 - t)^2
         [1.0, -2.0, 1.0, 0.0]
     """
-    result = np.zeros(TERMS)
-    linear = np.array([offset, scale])
-    power = np.array([1.0])
-    for coefficient in coefficients:
-        result[: len(power)] += coefficient * power
-        power = P.polymul(power, linear)[:TERMS]
-    return result
+    shifted = taylor_shift(pad(np.asarray(coefficients, dtype=float)), offset)
+    return shifted * scale ** np.arange(TERMS) + 0.0  # type: ignore[no-any-return]

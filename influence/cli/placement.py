@@ -22,8 +22,8 @@ from influence.output.governing_tables import (
 from influence.output.tables import render_csv, render_json, render_table
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadModel
-from vehicles.placement import govern
-from vehicles.sweep import sweep
+from vehicles.search.govern import govern
+from vehicles.search.sweep import sweep
 
 _COMPONENTS = sorted({c for cs in COMPONENTS.values() for c in cs})
 
@@ -86,8 +86,9 @@ def govern_command(model_file: str, response: str, location: str, side: str,
         chosen = [p for p in (g.max, g.min) if p is not None]
         # two load models may name a case alike: find it by model and case
         cases = {(m.name, c.name): c for m in models for c in m.cases}
-        sweeps = [sweep(result.line.ppoly, cases[p.model, p.case], p.direction, kind=response,
-                        sense=p.sense, choices=[gap.value for gap in p.gaps])
+        sweeps = [sweep(result.line.function, cases[p.model, p.case], p.direction, kind=response,
+                        sense=p.sense,
+                        ranged_values=[r.value for r in p.ranged_values if r.value is not None])
                   for p in chosen]
         save(draw_governing(result.line, chosen, sweeps, model), plot_file)
 
@@ -121,7 +122,7 @@ def sweep_command(model_file: str, response: str, location: str, side: str,
         raise VehicleError(f"no case named {case_name!r}", item=models[0].name,
                            fix="cases: " + ", ".join(c.name for c in models[0].cases))
     ways = ("forward", "reverse") if direction == "both" else (direction,)
-    sweeps = [sweep(line.ppoly, case, way, kind=response, sense=sense, step=step)
+    sweeps = [sweep(line.function, case, way, kind=response, sense=sense, step=step)
               for case in cases for way in ways
               if case.train is not None or way == "forward"]
     title = f"{model.title}: sweep of {line.response.label}, {models[0].name}"
@@ -133,7 +134,7 @@ def sweep_command(model_file: str, response: str, location: str, side: str,
 
         # the trains drawn where the swept cases govern
         chosen = LoadModel(models[0].name, models[0].title, models[0].units, tuple(cases))
-        best = govern(line.ppoly, chosen, kind=response, interior=line.scope_interior,
+        best = govern(line.function, chosen, kind=response, interior=line.scope_interior,
                       section=line.section_chainage)
         extreme = best.max if sense == "max" else best.min  # the sense the sweeps were set for
         placements = [extreme] if extreme is not None else []

@@ -2,7 +2,7 @@
 effects and the factored combinations, each value traceable to its governing placement.
 
 For each section and response the influence line is built exactly and handed to the exact
-placement search of :mod:`vehicles.placement`; dead loads are integrated exactly on the same
+placement search of :mod:`vehicles.search.govern`; dead loads are integrated exactly on the same
 line (:mod:`influence.design.deadload`). Live-load values of one lane are multiplied by the
 live-load scale (distribution factor x multiple presence factor) of the design basis.
 
@@ -26,9 +26,9 @@ from influence.design.deadload import dead_load_effects
 from influence.design.sections import Section, Span, envelope_sections, spans
 from influence.model.basis import LIVE_LOAD, Combination, DesignBasis
 from influence.model.structure import Model
-from vehicles.batch import govern_many
 from vehicles.loadmodel import LoadModel
-from vehicles.placement import Governing, Placement, govern
+from vehicles.search.govern import Governing, govern, govern_many
+from vehicles.search.placement import Placement
 from vehicles.units import labels
 
 ENVELOPE_RESPONSES = ("moment", "shear", "reaction", "deflection")
@@ -40,8 +40,8 @@ DEFLECTION_REFINEMENT = 1e-4
 between envelope sections; the deflection at each trial section is exact."""
 
 LIVE_BLOCK = 256
-"""Influence lines searched together (vehicles.batch.govern_many); progress is reported a block
-at a time."""
+"""Influence lines searched together (vehicles.search.govern.govern_many); progress is
+reported a block at a time."""
 
 Progress = Callable[[int], None]
 
@@ -198,7 +198,7 @@ def envelope(
     entries = []
     for start in range(0, len(lines), LIVE_BLOCK):
         block = lines[start : start + LIVE_BLOCK]
-        lives = govern_many([line.ppoly for line in block], models,
+        lives = govern_many([line.function for line in block], models,
                             kinds=[line.response.kind for line in block],
                             interiors=[line.scope_interior for line in block],
                             sections=[line.section_chainage for line in block])
@@ -240,7 +240,7 @@ def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: De
         if not inside:
             continue
         lines = analysis.lines([Response("deflection", repr(float(c))) for c in inside])
-        results = govern_many([line.ppoly for line in lines], models,
+        results = govern_many([line.function for line in lines], models,
                               kinds=["deflection"] * len(lines),
                               interiors=[False] * len(lines),
                               sections=[line.section_chainage for line in lines])
@@ -267,7 +267,7 @@ def _negative_deflection(chainage: float, *, analysis: Analysis, models: Sequenc
                          trials: dict[float, Placement | None]) -> float:
     """Minus the largest live deflection at a section (for a minimiser), keeping its placement."""
     line = analysis.line(Response("deflection", repr(float(chainage))))
-    placement = govern(line.ppoly, models, kind="deflection").max
+    placement = govern(line.function, models, kind="deflection").max
     trials[float(chainage)] = placement
     return -(placement.value if placement else 0.0)
 

@@ -22,9 +22,10 @@ from dataclasses import dataclass
 from influence.analysis.lines import Analysis, InfluenceLine
 from influence.analysis.responses import RESPONSE_KINDS, SIDES, Response
 from influence.errors import LocationError
-from vehicles.concurrent import Concurrent, concurrent
 from vehicles.loadmodel import LoadModel
-from vehicles.placement import Governing, Placement, govern
+from vehicles.search.concurrent import Concurrent, concurrent
+from vehicles.search.govern import Governing, govern
+from vehicles.search.placement import Placement
 
 
 @dataclass(frozen=True)
@@ -68,13 +69,13 @@ def governing(analysis: Analysis, response: Response, models: Sequence[LoadModel
               top: int = 1, concurrent_with: Sequence[Response] = ()) -> GoverningResult:
     """The governing search for one response and the concurrent effects of others."""
     line, *others = analysis.lines([response, *concurrent_with])
-    result = govern(line.ppoly, list(models), kind=response.kind,
+    result = govern(line.function, list(models), kind=response.kind,
                     interior=line.scope_interior, section=line.section_chainage, top=top)
 
     def along(placement: Placement | None) -> tuple[Concurrent, ...]:
         if placement is None:
             return ()
-        return tuple(concurrent(placement, other.ppoly) for other in others)
+        return tuple(concurrent(placement, other.function) for other in others)
 
     return GoverningResult(
         line=line,

@@ -8,7 +8,7 @@ from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
 from influence.output.conventions import effect_unit, header_lines
 from influence.output.governing_tables import placement_fields
 from influence.output.tables import Table
-from vehicles.placement import Placement
+from vehicles.search.placement import Placement
 from vehicles.units import labels
 
 

@@ -12,8 +12,8 @@ from influence.analysis.lines import InfluenceLine
 from influence.model.structure import Model
 from influence.output.conventions import effect_unit
 from influence.output.figures import PALETTE, draw_line
-from vehicles.placement import Placement
-from vehicles.sweep import Sweep
+from vehicles.search.placement import Placement
+from vehicles.search.sweep import Sweep
 from vehicles.units import labels
 
 if TYPE_CHECKING:

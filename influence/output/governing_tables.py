@@ -8,9 +8,9 @@ from typing import Any
 from influence.design.governing import GoverningResult
 from influence.output.conventions import effect_unit, header_lines
 from influence.output.tables import Table
-from vehicles.concurrent import Concurrent
-from vehicles.placement import Placement
-from vehicles.sweep import Sweep
+from vehicles.search.concurrent import Concurrent
+from vehicles.search.placement import Placement
+from vehicles.search.sweep import Sweep
 from vehicles.units import labels
 
 
@@ -33,8 +33,8 @@ def placement_fields(placement: Placement, scale: float = 1.0) -> dict[str, Any]
         "axle_positions": placement.axle_positions,
         "axle_loads": placement.axle_loads,
         "axle_over_section": placement.section_axle,
-        "gaps": [{"item": g.item, "attribute": g.attribute, "range": [g.low, g.high],
-                  "value": g.value} for g in placement.gaps],
+        "ranged_values": [{"item": r.item, "attribute": r.attribute, "range": [r.low, r.high],
+                           "value": r.value} for r in placement.ranged_values],
         "patch_segments": placement.patch_segments,
         "lane_segments": placement.lane_segments,
         "lane_intensity": placement.lane_intensity,
@@ -66,7 +66,7 @@ def governing_document(result: GoverningResult, title: str,
                                         line.response.component)},
         "notes": list(notes),
         "conventions": header_lines(title, line.units)[1:],
-        "gap_tolerance": g.gap_tolerance,
+        "ranged_tolerance": g.ranged_tolerance,
         "max": None if g.max is None else placement_document(g.max, result,
                                                               result.concurrent_max),
         "min": None if g.min is None else placement_document(g.min, result,
@@ -101,7 +101,7 @@ def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = 
             rows.append((
                 sense, rank, p.value, p.model, p.case, p.direction, p.lead_position,
                 " ".join(f"{x:.4g}" for x in p.axle_positions) or "-",
-                " ".join(f"{gap.value:.4g}" for gap in p.gaps) or "-",
+                " ".join(f"{r.value:.4g}" for r in p.ranged_values) or "-",
                 "-" if p.section_axle is None else f"axle {p.section_axle + 1}",
                 " ".join(f"{a:.4g}-{b:.4g}" for a, b in p.lane_segments) or "-",
                 *(value.value for value in c),
@@ -118,7 +118,7 @@ def sweep_table(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
                   "jumps a position is listed twice (left, then right limit).")
     rows = []
     for s in sweeps:
-        gaps = " ".join(f"{v:.4g}" for v in s.choices) or "-"
+        gaps = " ".join(f"{r.value:.4g}" for r in s.ranged_values) or "-"
         for x, v in zip(s.lead_positions, s.values, strict=True):
             rows.append((s.case, s.direction, s.sense, gaps, float(x), float(v)))
     return Table(header, ("case", "direction", "lane for", f"gaps used [{names.length}]",
@@ -133,6 +133,7 @@ def sweep_document(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
         "units": {"force": names.force, "length": names.length,
                   "effect": effect_unit(kind, units)},
         "sweeps": [{"case": s.case, "direction": s.direction, "sense": s.sense,
-                    "gaps": s.choices, "lead_positions": s.lead_positions, "values": s.values}
+                    "ranged_values": [r.value for r in s.ranged_values],
+                    "lead_positions": s.lead_positions, "values": s.values}
                    for s in sweeps],
     }

@@ -24,7 +24,7 @@ import pytest
 
 from tests.influence_forms import simple_moment
 from tests.section_scan import axle_train, largest_over_sections, one_case, section_grid
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 
 EXACT = 1e-9  # relative
 GRID_SECTIONS = 79  # sections scanned across the span

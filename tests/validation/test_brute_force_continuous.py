@@ -14,7 +14,7 @@ from scipy.optimize import minimize_scalar
 
 from tests.influence_forms import continuous_moment, continuous_reaction
 from tests.section_scan import one_case
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 from vehicles.train import Axle, Patch, Train
 
 AGREEMENT = 1e-4  # 0.01 %, the criterion

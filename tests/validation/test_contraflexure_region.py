@@ -14,7 +14,7 @@ from influence.analysis.lines import analyse_model
 from influence.analysis.responses import Response
 from influence.model.beamform import continuous_beam
 from vehicles.library.catalog import get_model
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 
 L = 30.0
 ANALYSIS = analyse_model(continuous_beam([L, L], 2.0e6, ["pinned", "roller", "roller"]))

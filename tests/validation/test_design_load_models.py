@@ -66,7 +66,7 @@ def test_hl93_truck_pair_for_negative_moment() -> None:
     pair = case(get_model("HL-93"), "90% truck pair + lane")
     assert pair.train is not None
     assert pair.factor == 0.90 and pair.train.total_load() == 2 * 72.0
-    (headway,) = pair.train.ranges
+    (headway,) = pair.train.ranged_values
     assert headway.low == 50.0
     assert pair.train.length([headway.low]) == 28.0 + 50.0 + 28.0
     assert pair.scope == Scope(("negative moment between contraflexure points",
@@ -83,8 +83,8 @@ def test_hl93_in_si_agrees_with_the_si_edition() -> None:
     hl93 = get_model("HL-93", units="kN-m")
     truck = train(hl93, "design truck + lane")
     assert loads(truck) == pytest.approx([35.0, 145.0, 145.0], rel=SI_EDITION_ROUNDING)
-    assert truck.ranges[0].low == pytest.approx(4.3, rel=SI_EDITION_ROUNDING)
-    assert truck.ranges[0].high == pytest.approx(9.0, rel=SI_EDITION_ROUNDING)
+    assert truck.ranged_values[0].low == pytest.approx(4.3, rel=SI_EDITION_ROUNDING)
+    assert truck.ranged_values[0].high == pytest.approx(9.0, rel=SI_EDITION_ROUNDING)
     tandem = train(hl93, "design tandem + lane")
     assert loads(tandem) == pytest.approx([110.0, 110.0], rel=SI_EDITION_ROUNDING)
     assert tandem.length() == pytest.approx(1.2, rel=SI_EDITION_ROUNDING)
@@ -96,7 +96,7 @@ def test_hl93_fatigue_truck() -> None:
     assert fatigue.train is not None
     # 3.6.1.4.1 (confirmed): one design truck, 30 ft between the 32 kip axles
     assert fatigue.train.total_load() == 72.0 and fatigue.train.length() == 14.0 + 30.0
-    assert fatigue.train.ranges == ()
+    assert fatigue.train.ranged_values == ()
     # Table 3.6.2.1-1, fatigue and fracture (from memory, unconfirmed): IM = 15 %; no lane load
     assert fatigue.axle_allowance == 0.15 and fatigue.lane == 0.0
 
@@ -109,7 +109,7 @@ def test_hs20_truck_and_lane_loading() -> None:
     truck = train(hs20, "HS20 truck")
     # 3.7 (axles and 14 ft confirmed; 14 to 30 ft rear gap from memory): 36 tons = 72 kip
     assert truck.total_load() == 36 * 2.0 and loads(truck) == [8.0, 32.0, 32.0]
-    assert (truck.ranges[0].low, truck.ranges[0].high) == (14.0, 30.0)
+    assert (truck.ranged_values[0].low, truck.ranged_values[0].high) == (14.0, 30.0)
     lane = case(hs20, "HS20 lane loading")
     # lane loading (confirmed, Khan 2010 Table 6.7): 0.64 klf + 18 kip (moment) / 26 kip (shear)
     assert lane.train is None and lane.lane == 0.64

@@ -26,7 +26,7 @@ from tests.influence_forms import (
     simple_shear,
 )
 from tests.section_scan import axle_train, largest_over_sections, one_case, section_grid
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 from vehicles.train import Axle, Train
 
 EXACT = 1e-9  # relative: closed form against exact placement
@@ -149,7 +149,7 @@ def test_hl93_truck_midspan_and_absolute_maximum():
     ranged = one_case(truck, units="kip-ft")
     midspan = govern(simple_moment(span, span / 2), ranged, kind="moment", section=span / 2).max
     assert close(midspan.value, 32 * 25 + 8 * 18 + 32 * 18)
-    assert midspan.gaps[0].value == 14.0
+    assert midspan.ranged_values[0].value == 14.0
     W, centroid = 72.0, (32 * 14 + 32 * 28) / 72
     s = (span - centroid - 14) / 2
     barre = W * (span - s - centroid) * (s + 14) / span - 8 * 14

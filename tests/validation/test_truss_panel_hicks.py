@@ -13,7 +13,7 @@ import pytest
 
 from tests.influence_forms import truss_panel_shear
 from tests.section_scan import axle_train, one_case
-from vehicles.placement import govern
+from vehicles.search.govern import govern
 
 PUBLISHED_ROUNDING = 0.05  # [kip]: 23.0 printed to three figures
 

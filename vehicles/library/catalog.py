@@ -26,7 +26,7 @@ from pathlib import Path
 
 from vehicles.errors import VehicleError
 from vehicles.library.adjust import adjusted
-from vehicles.library.files import parse_model, read_model
+from vehicles.library.files import parse_load_model, read_load_model
 from vehicles.loadmodel import LoadModel
 from vehicles.units import model_in
 
@@ -41,7 +41,8 @@ def _library() -> dict[str, LoadModel]:
     folder = resources.files("vehicles") / "data"
     for entry in sorted(folder.iterdir(), key=lambda e: e.name):
         if entry.name.endswith(".toml"):
-            model = parse_model(entry.read_text(encoding="utf-8"), f"vehicles/data/{entry.name}")
+            model = parse_load_model(entry.read_text(encoding="utf-8"),
+                                     f"vehicles/data/{entry.name}")
             models[model.name] = model
     return models
 
@@ -97,7 +98,7 @@ def load_model(name_or_path: str | Path, units: str | None = None,
     """
     text = str(name_or_path)
     if isinstance(name_or_path, Path) or text.lower().endswith(".toml") or Path(text).is_file():
-        model = read_model(text)
+        model = read_load_model(text)
     else:
         model = get_model(text)
     if adjust:

@@ -27,7 +27,7 @@ AASHTO LRFD 3.6.1.3.1 neglects axles that do not contribute), ``scope`` (list, s
 ``["negative moment", "interior reaction"]``) and ``note``.
 
 Example:
-    >>> model = parse_model('''
+    >>> model = parse_load_model('''
     ... [vehicle]
     ... name = "hauler"
     ... units = "kN-m"
@@ -36,7 +36,7 @@ Example:
     ... dynamic_allowance = 0.25
     ... ''', "hauler.toml")
     >>> case = model.cases[0]
-    >>> case.train.total_load(), case.axle_allowance, case.train.ranges[0].high
+    >>> case.train.total_load(), case.axle_allowance, case.train.ranged_values[0].high
     (280.0, 0.25, 4.0)
 """
 
@@ -337,7 +337,7 @@ class _Reader:
         return value
 
 
-def parse_model(text: str, source: str = "<text>") -> LoadModel:
+def parse_load_model(text: str, source: str = "<text>") -> LoadModel:
     """Read a vehicle or load-model document from TOML text.
 
     Args:
@@ -355,7 +355,7 @@ def parse_model(text: str, source: str = "<text>") -> LoadModel:
     return _Reader(source).document(data)
 
 
-def read_model(path: str | Path) -> LoadModel:
+def read_load_model(path: str | Path) -> LoadModel:
     """Read a vehicle file or a load-model file.
 
     Args:
@@ -371,4 +371,4 @@ def read_model(path: str | Path) -> LoadModel:
         reason = getattr(error, "strerror", None) or str(error)
         raise VehicleError(f"cannot read the file: {reason}", source=str(path),
                            fix="give the path of a UTF-8 TOML vehicle file") from None
-    return parse_model(text, str(path))
+    return parse_load_model(text, str(path))

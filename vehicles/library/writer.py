@@ -1,5 +1,5 @@
 """Writing a :class:`LoadModel` as a model file that
-:func:`vehicles.library.files.read_model` reads.
+:func:`vehicles.library.files.read_load_model` reads.
 
 The writer emits the ``[model]`` form: each case carries its own ``[case.train]`` table, written as
 ``loads`` and ``spacings`` (with a leading or trailing uniform load where there is one) or, when

@@ -54,8 +54,8 @@ def train_totals(train: Train) -> dict[str, Any]:
         >>> train_totals(truck)
         {'total_load': [72.0, 72.0], 'length': [28.0, 44.0], 'unlimited_uniform': None}
     """
-    low = _finite_totals(train.arranged([r.low for r in train.ranges]))
-    high = _finite_totals(train.arranged([r.high for r in train.ranges]))
+    low = _finite_totals(train.arranged([r.low for r in train.ranged_values]))
+    high = _finite_totals(train.arranged([r.high for r in train.ranged_values]))
     return {
         "total_load": [low[0], high[0]],
         "length": [low[1], high[1]],

@@ -1,7 +1,7 @@
 """Effects concurrent with a placement: another response under exactly the same loads.
 
-Given a :class:`~vehicles.placement.Placement` (found on one influence function) and another
-influence function on the same path, the concurrent effect is that response with the same axle
+Given a :class:`~vehicles.search.placement.Placement` (found on one influence line) and another
+influence line on the same path, the concurrent effect is that response with the same axle
 chainages and factored loads, the same patch and lane segments and intensities, and the same
 knife-edge load and position: for example the shear and the reactions concurrent with the largest
 moment. Exact: point loads take ordinates, uniform loads exact integrals.
@@ -11,13 +11,13 @@ shear line) makes the effect ambiguous; both one-sided values are returned, with
 nudged toward lower chainage ("left") or higher chainage ("right").
 
 Example:
-    >>> from scipy.interpolate import PPoly
+    >>> from piecewise import Piecewise
     >>> from vehicles.loadmodel import LoadCase, LoadModel
-    >>> from vehicles.placement import govern
+    >>> from vehicles.search.govern import govern
     >>> from vehicles.train import Axle, Train
-    >>> L = 12.0  # [m] simple span; moment and shear at midspan, reaction at the start
-    >>> moment = PPoly([[0.5, -0.5], [0.0, 3.0]], [0.0, 6.0, 12.0])
-    >>> shear = PPoly([[-1 / L, -1 / L], [0.0, 0.5]], [0.0, 6.0, 12.0])
+    >>> L = 12.0  # [m] simple span; moment and shear at midspan
+    >>> moment = Piecewise(np.array([0.0, 6.0, 12.0]), np.array([[0.0, 3.0], [0.5, -0.5]]))
+    >>> shear = Piecewise(np.array([0.0, 6.0, 12.0]), np.array([[0.0, 0.5], [-1 / L, -1 / L]]))
     >>> one = LoadModel("P", "one axle", "kN-m", (LoadCase("axle", Train("P", (Axle(10.0),))),))
     >>> best = govern(moment, one, kind="moment").max
     >>> c = concurrent(best, shear)
@@ -28,14 +28,13 @@ Example:
 from __future__ import annotations
 
 from dataclasses import dataclass
+from typing import Any
 
 import numpy as np
-from scipy.interpolate import PPoly
 
-from vehicles.effect import PreparedInfluence, prepare
-from vehicles.extremes import RELATIVE_VALUE_TOLERANCE
-from vehicles.piecewise import antiderivative
-from vehicles.placement import Placement
+from piecewise.tolerances import VALUE
+from vehicles.search.placement import Placement
+from vehicles.search.prepared import as_piecewise
 
 
 @dataclass(frozen=True)
@@ -57,36 +56,28 @@ class Concurrent:
     ambiguous: bool
 
 
-def concurrent(placement: Placement, influence: PPoly | PreparedInfluence) -> Concurrent:
-    """The effect on ``influence`` of exactly the loads of ``placement``.
+def concurrent(placement: Placement, line: Any) -> Concurrent:
+    """The effect on ``line`` of exactly the loads of ``placement``.
 
     Args:
         placement: a governing (or any) placement.
-        influence: another response per unit downward load on the same path [length].
+        line: another response per unit downward load on the same path [length].
     """
-    prepared = prepare(influence)
-    line = prepared.line
-    area = antiderivative(line)
-
-    def integral(start: float, end: float) -> float:
-        # the integral is continuous: either one-sided value will do inside the path
-        ends = np.clip(np.array([start, end]), prepared.start, prepared.end)
-        values = area.values_at(ends, side="left")
-        return float(values[1] - values[0])
-
-    distributed = sum(q * integral(a, b) for a, b, q in placement.patch_segments)
-    distributed += sum(placement.lane_intensity * integral(a, b)
+    function = as_piecewise(line)
+    distributed = sum(q * function.integral(a, b) for a, b, q in placement.patch_segments)
+    distributed += sum(placement.lane_intensity * function.integral(a, b)
                        for a, b in placement.lane_segments)
     points = np.array(placement.axle_positions)
     loads = np.array(placement.axle_loads)
     if placement.knife_edge_position is not None:
         points = np.append(points, placement.knife_edge_position)
         loads = np.append(loads, placement.knife_edge_load)
-    left, right = (distributed + float(loads @ line.values_at(points, side=side))
+    left, right = (distributed + float(loads @ function.values(points, side=side))
                    for side in ("left", "right"))
-    scale = float(np.abs(loads).sum()) * max(abs(prepared.largest.value),
-                                               abs(prepared.smallest.value))
-    ambiguous = abs(left - right) > RELATIVE_VALUE_TOLERANCE * scale
+    extremes = function.extremes()
+    scale = float(np.abs(loads).sum()) * max(abs(extremes.largest.value),
+                                               abs(extremes.smallest.value))
+    ambiguous = abs(left - right) > VALUE * scale
     if placement.limit_side is not None:
         value = left if placement.limit_side == "left" else right
     else:
