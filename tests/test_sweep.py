@@ -64,7 +64,8 @@ def test_governing_maximum_is_the_sweep_maximum():
     best = govern(LINE, model, kind="moment", directions=("reverse",)).max
     result = sweep(LINE, CASE, "reverse", kind="moment", step=0.25)
     assert best.value >= result.values.max() - EXACT * abs(best.value)
-    assert float(result.effect.values(best.lead_position)[0]) == pytest.approx(best.value, rel=EXACT)
+    at_best = float(result.effect.values(best.lead_position)[0])
+    assert at_best == pytest.approx(best.value, rel=EXACT)
 
 
 def test_ranged_gap_defaults_to_the_governing_value():
