@@ -18,6 +18,7 @@ from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
 from vehicles.modelwriter import write_model
 from vehicles.placement import Governing, Placement, govern
 from vehicles.sweep import sweep
+from vehicles.traffic import TrafficCategory, TrafficType
 from vehicles.train import Arrangement, Axle, Patch, Train
 from vehicles.units import model_in
 from vehicles.vehiclefile import read_model
@@ -32,6 +33,8 @@ __all__ = [
     "Patch",
     "Placement",
     "Scope",
+    "TrafficCategory",
+    "TrafficType",
     "Train",
     "VehicleError",
     "adjusted",
