@@ -82,7 +82,7 @@ def test_traffic_types_name_cases_of_the_model() -> None:
 def test_traffic_tables_in_a_file_name_the_file_and_the_table() -> None:
     text = ('[model]\nname = "m"\nunits = "kN-m"\n[[case]]\nname = "lorry 1"\nloads = [100]\n'
             '[[traffic_type]]\nname = "local"\nshares = { "lorry 1" = 0.9 }\n')
-    with pytest.raises(VehicleError, match=r"f\.toml: \[\[traffic_type\]\] 1 .*add up to 0.9, not 1"):
+    with pytest.raises(VehicleError, match=r"f\.toml: \[\[traffic_type\]\] 1 .*add up to 0\.9"):
         parse_model(text, "f.toml")
     text = text.replace("shares = { \"lorry 1\" = 0.9 }", "shares = 0.9")
     with pytest.raises(VehicleError, match="shares: expected a table"):

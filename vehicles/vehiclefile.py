@@ -104,6 +104,11 @@ class _Reader:
             item = f"{where} {error.item}" if error.item else where
             raise self.fail(item, error.problem, error.fix) from None
 
+    def require(self, raw: Mapping[str, Any], where: str, keys: tuple[str, ...]) -> None:
+        for key in keys:
+            if key not in raw:
+                raise self.fail(where, f"no {key}", f"give {key} = ...")
+
     def table(self, value: object, where: str, allowed: tuple[str, ...]) -> dict[str, Any]:
         if not isinstance(value, dict):
             raise self.fail(where, f"expected a table, found {value!r}", "give a TOML table")
@@ -286,9 +291,7 @@ class _Reader:
 
     def adjustment(self, value: object, where: str) -> Adjustment:
         raw = self.table(value, where, ADJUSTMENT_KEYS)
-        for key in ("name", "value"):
-            if key not in raw:
-                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        self.require(raw, where, ("name", "value"))
         name = self.text(raw["name"], f"{where} name")
         value = self.number(raw["value"], f"{where} value")
         scales = self.texts(raw.get("scales", []), f"{where} scales")
@@ -298,9 +301,7 @@ class _Reader:
 
     def traffic_type(self, value: object, where: str) -> TrafficType:
         raw = self.table(value, where, TRAFFIC_TYPE_KEYS)
-        for key in ("name", "shares"):
-            if key not in raw:
-                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        self.require(raw, where, ("name", "shares"))
         name = self.text(raw["name"], f"{where} name")
         if not isinstance(raw["shares"], dict) or not raw["shares"]:
             raise self.fail(f"{where} shares", f"expected a table, found {raw['shares']!r}",
@@ -312,9 +313,7 @@ class _Reader:
 
     def traffic_category(self, value: object, where: str) -> TrafficCategory:
         raw = self.table(value, where, TRAFFIC_CATEGORY_KEYS)
-        for key in ("name", "heavy_vehicles_per_year"):
-            if key not in raw:
-                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        self.require(raw, where, ("name", "heavy_vehicles_per_year"))
         name = self.text(raw["name"], f"{where} name")
         count = self.number(raw["heavy_vehicles_per_year"], f"{where} heavy_vehicles_per_year",
                             positive=True)
@@ -323,9 +322,7 @@ class _Reader:
 
     def model(self, meta: Mapping[str, Any], where: str, cases: tuple[LoadCase, ...],
               **extras: tuple[Any, ...]) -> LoadModel:
-        for key in ("name", "units"):
-            if key not in meta:
-                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        self.require(meta, where, ("name", "units"))
         name = self.text(meta["name"], f"{where} name")
         fields = {key: self.text(meta.get(key, ""), f"{where} {key}")
                   for key in ("title", "units", "standard", "clause", "category")}
