@@ -21,8 +21,18 @@ from vehicles.units import KN_PER_KIP, M_PER_FT, factors
 ROUND_TRIP = 1e-12
 """Relative tolerance of a kN-m -> kip-ft -> kN-m round trip (a few float multiplications)."""
 
-LIBRARY = ("HL-93", "HL-93 fatigue", "HS20-44", "LM1", "LM2", "LM71", "SW/0", "SW/2",
-           "Cooper E80")
+CATEGORY = {
+    "HL-93": "design", "HL-93 deflection": "deflection", "HL-93 fatigue": "fatigue",
+    "HS20-44": "design", "LM1": "design", "LM2": "design", "LM71": "design", "SW/0": "design",
+    "SW/2": "design", "Cooper E80": "design",
+    "Type 3": "legal", "Type 3S2": "legal", "Type 3-3": "legal", "Type 3-3 lane-type": "legal",
+    "SU4": "specialized hauling", "SU5": "specialized hauling", "SU6": "specialized hauling",
+    "SU7": "specialized hauling", "NRL": "notional", "EV2": "emergency", "EV3": "emergency",
+    "FLM3": "fatigue", "FLM4": "fatigue",
+}
+"""Every library model and what it is for."""
+
+LIBRARY = tuple(CATEGORY)
 
 
 def numbers(value: object) -> Iterator[float]:
@@ -47,6 +57,10 @@ def test_unit_factors_are_exact_by_definition() -> None:
 
 def test_the_library_holds_every_model() -> None:
     assert set(LIBRARY) <= set(library_names())
+
+
+def test_every_library_model_has_its_category() -> None:
+    assert {name: get_model(name).category for name in library_names()} == CATEGORY
 
 
 @pytest.mark.parametrize("name", LIBRARY)

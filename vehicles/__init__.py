@@ -19,6 +19,7 @@ from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
 from vehicles.search.govern import Governing, govern, govern_many
 from vehicles.search.placement import Placement
 from vehicles.search.sweep import sweep
+from vehicles.traffic import TrafficCategory, TrafficType
 from vehicles.train import Arrangement, Axle, Patch, Train
 from vehicles.units import model_in
 
@@ -32,6 +33,8 @@ __all__ = [
     "Patch",
     "Placement",
     "Scope",
+    "TrafficCategory",
+    "TrafficType",
     "Train",
     "VehicleError",
     "adjusted",

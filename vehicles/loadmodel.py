@@ -18,11 +18,19 @@ import math
 from dataclasses import dataclass, field
 
 from vehicles.errors import VehicleError
-from vehicles.train import Train
-from vehicles.units import system
+from vehicles.traffic import TrafficCategory, TrafficType
+from vehicles.train import Axle, Train
+from vehicles.units import factors, system
 
 RESPONSE_KINDS = ("reaction", "shear", "moment", "axial", "deflection", "rotation")
 SENSES = ("max", "min")
+
+CATEGORIES = ("design", "legal", "specialized hauling", "notional", "emergency", "permit",
+              "fatigue", "deflection")
+"""What a load model is for: ``LoadModel.category`` is one of these, or "" when unsaid."""
+
+KIP_PER_TON = 2.0
+"""A ton of 2000 lb, the ton of US load posting, is 2 kip (1 kip = 1000 lb)."""
 
 SCOPE_TOKENS = {
     # token: (response kind, sense or None for both, interior region only)
@@ -212,7 +220,24 @@ class LoadModel:
         standard: the standard and edition ("" for a user's own vehicle).
         clause: the clauses the values come from.
         notes: remarks, including which values were recalled rather than read.
-        adjustments: inputs the user may change (see :func:`vehicles.library.adjust.adjusted`).
+        adjustments: inputs the user may change (see
+            :func:`vehicles.library.adjust.adjusted`).
+        category: what the model is for, one of :data:`CATEGORIES` ("" when unsaid).
+        traffic_types: for a set of lorries (fatigue), each lorry's share of the heavy
+            vehicles by traffic type; the shares name cases of the model.
+        traffic_categories: heavy vehicles a year on one slow lane by class of road.
+
+    Example:
+        >>> truck = Train("Type 3", (Axle(16.0), Axle(17.0, 15.0), Axle(17.0, 4.0)))
+        >>> legal = LoadModel("Type 3", "legal truck", "kip-ft", (LoadCase("Type 3", truck),),
+        ...                   category="legal")
+        >>> legal.gross_weight, legal.gross_weight_tons
+        (50.0, 25.0)
+        >>> try:
+        ...     LoadModel("x", "x", "kip-ft", legal.cases, category="rating")
+        ... except VehicleError as error:
+        ...     print(error.problem)
+        unknown category 'rating'
     """
 
     name: str
@@ -223,17 +248,51 @@ class LoadModel:
     clause: str = ""
     notes: tuple[str, ...] = ()
     adjustments: tuple[Adjustment, ...] = ()
+    category: str = ""
+    traffic_types: tuple[TrafficType, ...] = ()
+    traffic_categories: tuple[TrafficCategory, ...] = ()
 
     def __post_init__(self) -> None:
-        object.__setattr__(self, "cases", tuple(self.cases))
-        object.__setattr__(self, "notes", tuple(self.notes))
-        object.__setattr__(self, "adjustments", tuple(self.adjustments))
+        for name in ("cases", "notes", "adjustments", "traffic_types", "traffic_categories"):
+            object.__setattr__(self, name, tuple(getattr(self, name)))
         if not self.cases:
             raise VehicleError("a load model needs at least one case", item=self.name)
         system(self.units)
-        for kind, names in (("case", [c.name for c in self.cases]),
-                            ("adjustment", [a.name for a in self.adjustments])):
+        if self.category and self.category not in CATEGORIES:
+            raise VehicleError(f"unknown category '{self.category}'", item=self.name,
+                               fix="use one of: " + ", ".join(CATEGORIES))
+        case_names = [c.name for c in self.cases]
+        for kind, names in (("case", case_names),
+                            ("adjustment", [a.name for a in self.adjustments]),
+                            ("traffic type", [t.name for t in self.traffic_types]),
+                            ("traffic category", [t.name for t in self.traffic_categories])):
             repeated = sorted({n for n in names if names.count(n) > 1})
             if repeated:
                 raise VehicleError(f"{kind} name '{repeated[0]}' is used twice", item=self.name,
                                    fix=f"give each {kind} its own name")
+        for traffic in self.traffic_types:
+            for case, _ in traffic.shares:
+                if case not in case_names:
+                    raise VehicleError(f"no case named '{case}'",
+                                       item=f"{self.name}: traffic type {traffic.name}",
+                                       fix="name the lorries by their case names")
+
+    @property
+    def gross_weight(self) -> float:
+        """Total axle load of the first case with a train, as written [force].
+
+        The vehicle's weight W for posting: no case factor and no dynamic allowance.
+
+        Raises:
+            VehicleError: when no case has a train, or the train has uniform loads.
+        """
+        train = next((case.train for case in self.cases if case.train is not None), None)
+        if train is None or not all(isinstance(item, Axle) for item in train.items):
+            raise VehicleError("no case has a train of axles alone", item=self.name,
+                               fix="the gross weight is for vehicles with axles only")
+        return train.total_load()
+
+    @property
+    def gross_weight_tons(self) -> float:
+        """:attr:`gross_weight` in tons of 2000 lb [ton], whatever the model's units."""
+        return self.gross_weight * factors(self.units, "kip-ft").force / KIP_PER_TON

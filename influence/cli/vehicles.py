@@ -8,6 +8,7 @@ import click
 
 from influence.cli import main
 from vehicles.library.catalog import library_models, load_model
+from vehicles.loadmodel import CATEGORIES
 from vehicles.output.describe import details, summary
 from vehicles.output.tables import as_json, library_table, model_text
 from vehicles.units import SYSTEMS
@@ -38,15 +39,21 @@ def parse_adjustments(values: tuple[str, ...]) -> dict[str, float]:
               help="Draw the model's trains to this image file (.png, .svg, .pdf).")
 @click.option("--adjust", multiple=True, metavar="NAME=VALUE",
               help="Give a model input a value, such as alpha=1.21 (repeatable).")
+@click.option("--category", type=click.Choice(CATEGORIES), default=None,
+              help="List only the models of this category.")
 def vehicles_command(name: str | None, units: str | None, output_format: str,
-                     plot_path: Path | None, adjust: tuple[str, ...]) -> None:
-    """List the library of design load models, or show one by NAME or vehicle FILE."""
+                     plot_path: Path | None, adjust: tuple[str, ...],
+                     category: str | None) -> None:
+    """List the library of load models, or show one by NAME or vehicle FILE."""
     if name is None:
         if plot_path is not None or adjust:
             raise click.UsageError("--plot and --adjust need a NAME or FILE")
-        rows = [summary(model) for model in library_models(units)]
+        rows = [summary(model) for model in library_models(units)
+                if category in (None, model.category)]
         click.echo(library_table(rows) if output_format == "table" else as_json(rows))
         return
+    if category is not None:
+        raise click.UsageError("--category selects from the list: give no NAME or FILE")
     model = load_model(name, units, parse_adjustments(adjust))
     if plot_path is not None:
         from vehicles.output.figures import plot_model

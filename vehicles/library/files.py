@@ -2,8 +2,12 @@
 
 Two forms share one vocabulary. A vehicle file holds one ``[vehicle]`` table: a train, its
 factors and lane load, read as a model with a single case. A model file holds ``[model]``
-(name, title, units, standard, clause, notes), optional ``[[train]]`` tables that cases refer to
-by name, ``[[case]]`` tables and optional ``[[adjustment]]`` tables. Every value is in the units
+(name, title, units, standard, clause, notes, category), optional ``[[train]]`` tables that cases
+refer to by name, ``[[case]]`` tables, optional ``[[adjustment]]`` tables and, for a set of
+fatigue lorries, optional ``[[traffic_type]]`` tables (``name``, ``shares`` = a table of case
+name = fraction of the heavy vehicles, ``note``) and ``[[traffic_category]]`` tables (``name``,
+``heavy_vehicles_per_year`` on one slow lane, ``note``). ``category`` says what the model is for:
+one of :data:`vehicles.loadmodel.CATEGORIES`. Every value is in the units
 the file names (``units = "kN-m"`` or ``"kip-ft"``): loads [force], gaps and lengths [length],
 uniform and lane loads [force/length].
 
@@ -52,9 +56,10 @@ from typing import Any, TypeVar
 
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
+from vehicles.traffic import TrafficCategory, TrafficType
 from vehicles.train import Axle, Item, Patch, Span, Train
 
-MODEL_KEYS = ("name", "title", "units", "standard", "clause", "notes")
+MODEL_KEYS = ("name", "title", "units", "standard", "clause", "notes", "category")
 TRAIN_KEYS = ("loads", "spacings", "leading_uniform", "trailing_uniform", "items", "vehicles",
               "headways")
 CASE_KEYS = ("name", "train", "factor", "dynamic_allowance", "uniform_dynamic_allowance", "lane",
@@ -63,6 +68,8 @@ CASE_KEYS = ("name", "train", "factor", "dynamic_allowance", "uniform_dynamic_al
 VEHICLE_KEYS = tuple(dict.fromkeys((*MODEL_KEYS, *CASE_KEYS)))
 UNIFORM_KEYS = ("intensity", "length", "gap")
 ADJUSTMENT_KEYS = ("name", "value", "scales", "sets", "note")
+TRAFFIC_TYPE_KEYS = ("name", "shares", "note")
+TRAFFIC_CATEGORY_KEYS = ("name", "heavy_vehicles_per_year", "note")
 UNLIMITED = "unlimited"
 
 _CASE_FIELDS = {
@@ -96,6 +103,11 @@ class _Reader:
         except VehicleError as error:
             item = f"{where} {error.item}" if error.item else where
             raise self.fail(item, error.problem, error.fix) from None
+
+    def require(self, raw: Mapping[str, Any], where: str, keys: tuple[str, ...]) -> None:
+        for key in keys:
+            if key not in raw:
+                raise self.fail(where, f"no {key}", f"give {key} = ...")
 
     def table(self, value: object, where: str, allowed: tuple[str, ...]) -> dict[str, Any]:
         if not isinstance(value, dict):
@@ -279,9 +291,7 @@ class _Reader:
 
     def adjustment(self, value: object, where: str) -> Adjustment:
         raw = self.table(value, where, ADJUSTMENT_KEYS)
-        for key in ("name", "value"):
-            if key not in raw:
-                raise self.fail(where, f"no {key}", f"give {key} = ...")
+        self.require(raw, where, ("name", "value"))
         name = self.text(raw["name"], f"{where} name")
         value = self.number(raw["value"], f"{where} value")
         scales = self.texts(raw.get("scales", []), f"{where} scales")
@@ -289,18 +299,37 @@ class _Reader:
         note = self.text(raw.get("note", ""), f"{where} note")
         return self.built(where, partial(Adjustment, name, value, scales, sets, note))
 
+    def traffic_type(self, value: object, where: str) -> TrafficType:
+        raw = self.table(value, where, TRAFFIC_TYPE_KEYS)
+        self.require(raw, where, ("name", "shares"))
+        name = self.text(raw["name"], f"{where} name")
+        if not isinstance(raw["shares"], dict) or not raw["shares"]:
+            raise self.fail(f"{where} shares", f"expected a table, found {raw['shares']!r}",
+                            'give shares = { "case name" = fraction, ... }')
+        shares = tuple((case, self.number(share, f"{where} shares {case}"))
+                       for case, share in raw["shares"].items())
+        note = self.text(raw.get("note", ""), f"{where} note")
+        return self.built(where, partial(TrafficType, name, shares, note))
+
+    def traffic_category(self, value: object, where: str) -> TrafficCategory:
+        raw = self.table(value, where, TRAFFIC_CATEGORY_KEYS)
+        self.require(raw, where, ("name", "heavy_vehicles_per_year"))
+        name = self.text(raw["name"], f"{where} name")
+        count = self.number(raw["heavy_vehicles_per_year"], f"{where} heavy_vehicles_per_year",
+                            positive=True)
+        note = self.text(raw.get("note", ""), f"{where} note")
+        return self.built(where, partial(TrafficCategory, name, count, note))
+
     def model(self, meta: Mapping[str, Any], where: str, cases: tuple[LoadCase, ...],
-              adjustments: tuple[Adjustment, ...]) -> LoadModel:
-        for key in ("name", "units"):
-            if key not in meta:
-                raise self.fail(where, f"no {key}", f"give {key} = ...")
+              **extras: tuple[Any, ...]) -> LoadModel:
+        self.require(meta, where, ("name", "units"))
         name = self.text(meta["name"], f"{where} name")
         fields = {key: self.text(meta.get(key, ""), f"{where} {key}")
-                  for key in ("title", "units", "standard", "clause")}
+                  for key in ("title", "units", "standard", "clause", "category")}
         notes = self.texts(meta.get("notes", []), f"{where} notes")
         return self.built(where, lambda: LoadModel(
             name, fields["title"] or name, fields["units"], cases, fields["standard"],
-            fields["clause"], notes, adjustments))
+            fields["clause"], notes, category=fields["category"], **extras))
 
     def document(self, data: Mapping[str, Any]) -> LoadModel:
         if "vehicle" in data:
@@ -308,8 +337,9 @@ class _Reader:
             raw = self.table(data["vehicle"], "[vehicle]", VEHICLE_KEYS)
             case_raw = {k: v for k, v in raw.items() if k in CASE_KEYS}
             case = self.case(case_raw, "[vehicle]", {})
-            return self.model(raw, "[vehicle]", (case,), ())
-        self.table(data, "file", ("model", "train", "case", "adjustment"))
+            return self.model(raw, "[vehicle]", (case,))
+        self.table(data, "file", ("model", "train", "case", "adjustment", "traffic_type",
+                                  "traffic_category"))
         if "model" not in data:
             raise self.fail("file", "no [vehicle] or [model] table",
                             "start the file with [vehicle] (one vehicle) or [model] (cases)")
@@ -325,10 +355,17 @@ class _Reader:
         cases = tuple(self.case(self.table(value, f"[[case]] {i + 1}", CASE_KEYS),
                                 f"[[case]] {i + 1}", named)
                       for i, value in enumerate(self.tables(data, "case")))
-        adjustments = tuple(self.adjustment(value, f"[[adjustment]] {i + 1}")
-                            for i, value in enumerate(self.tables(data, "adjustment")))
+        readers: dict[str, tuple[str, Callable[[object, str], object]]] = {
+            # model field: (file table, reader)
+            "adjustments": ("adjustment", self.adjustment),
+            "traffic_types": ("traffic_type", self.traffic_type),
+            "traffic_categories": ("traffic_category", self.traffic_category),
+        }
+        extras = {field: tuple(read(value, f"[[{key}]] {i + 1}")
+                               for i, value in enumerate(self.tables(data, key)))
+                  for field, (key, read) in readers.items()}
         meta = self.table(data["model"], "[model]", MODEL_KEYS)
-        return self.model(meta, "[model]", cases, adjustments)
+        return self.model(meta, "[model]", cases, **extras)
 
     def tables(self, data: Mapping[str, Any], key: str) -> list[object]:
         value = data.get(key, [])

@@ -30,6 +30,7 @@ from pathlib import Path
 from vehicles.atomic import written_whole
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel
+from vehicles.traffic import TrafficCategory, TrafficType
 from vehicles.train import Axle, Patch, Span, Train
 
 _CASE_DEFAULTS = (
@@ -135,11 +136,22 @@ def _adjustment_lines(adjustment: Adjustment) -> list[str]:
     return lines + _given(scales=adjustment.scales, sets=adjustment.sets, note=adjustment.note)
 
 
+def _traffic_lines(traffic: TrafficType | TrafficCategory) -> list[str]:
+    if isinstance(traffic, TrafficType):
+        shares = ", ".join(f"{_text(case)} = {_number(share)}" for case, share in traffic.shares)
+        lines = ["", "[[traffic_type]]", f"name = {_text(traffic.name)}",
+                 f"shares = {{ {shares} }}"]
+    else:
+        lines = ["", "[[traffic_category]]", f"name = {_text(traffic.name)}",
+                 f"heavy_vehicles_per_year = {_number(traffic.heavy_vehicles_per_year)}"]
+    return lines + _given(note=traffic.note)
+
+
 def model_to_toml(model: LoadModel) -> str:
     """The model as the text of a model file (units as the model's own)."""
     lines = ["[model]", f"name = {_text(model.name)}", f"title = {_text(model.title)}",
              f"units = {_text(model.units)}"]
-    lines += _given(standard=model.standard, clause=model.clause)
+    lines += _given(standard=model.standard, clause=model.clause, category=model.category)
     if model.notes:
         lines.append("notes = [")
         lines += [f"    {_text(note)}," for note in model.notes]
@@ -148,6 +160,10 @@ def model_to_toml(model: LoadModel) -> str:
         lines += _adjustment_lines(adjustment)
     for case in model.cases:
         lines += _case_lines(case)
+    traffic: tuple[TrafficType | TrafficCategory, ...] = (*model.traffic_types,
+                                                          *model.traffic_categories)
+    for item in traffic:
+        lines += _traffic_lines(item)
     return "\n".join(lines) + "\n"
 
 

@@ -101,13 +101,15 @@ def _case_details(case: LoadCase) -> dict[str, Any]:
 
 
 def summary(model: LoadModel) -> dict[str, Any]:
-    """One library row: name, standard, units, number of cases, and the range over the cases
-    of the train's finite total load [force] and length [length] (None for lane-only models)."""
+    """One library row: name, category, standard, units, number of cases, and the range over the
+    cases of the train's finite total load [force] and length [length] (None for lane-only
+    models)."""
     trains = [train_totals(c.train) for c in model.cases if c.train is not None]
     loads = [value for t in trains for value in t["total_load"]]
     lengths = [value for t in trains for value in t["length"]]
     return {
         "name": model.name,
+        "category": model.category,
         "title": model.title,
         "standard": model.standard,
         "units": model.units,
@@ -119,10 +121,12 @@ def summary(model: LoadModel) -> dict[str, Any]:
 
 
 def details(model: LoadModel) -> dict[str, Any]:
-    """One model in full: source, unit labels, notes, adjustments and each case with its train."""
+    """One model in full: source, unit labels, notes, adjustments, each case with its train and
+    the traffic data of a set of fatigue lorries (shares [-], heavy vehicles [1/year])."""
     unit = labels(model.units)
     return {
         "name": model.name,
+        "category": model.category,
         "title": model.title,
         "standard": model.standard,
         "clause": model.clause,
@@ -133,4 +137,9 @@ def details(model: LoadModel) -> dict[str, Any]:
         "adjustments": [{"name": a.name, "value": a.value, "scales": list(a.scales),
                          "sets": list(a.sets), "note": a.note} for a in model.adjustments],
         "cases": [_case_details(case) for case in model.cases],
+        "traffic_types": [{"name": t.name, "shares": dict(t.shares), "note": t.note}
+                          for t in model.traffic_types],
+        "traffic_categories": [{"name": t.name,
+                                "heavy_vehicles_per_year": t.heavy_vehicles_per_year,
+                                "note": t.note} for t in model.traffic_categories],
     }

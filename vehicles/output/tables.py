@@ -6,8 +6,8 @@ Example:
     >>> from vehicles.library.catalog import get_model
     >>> from vehicles.output.describe import summary
     >>> print(library_table([summary(get_model("LM2"))]))  # doctest: +NORMALIZE_WHITESPACE
-    name  units  cases  train load  train length  standard
-    LM2   kN-m   1      400 kN      0 m           EN 1991-2:2003 Actions on structures - ...
+    name  category  units  cases  train load  train length  standard
+    LM2   design    kN-m   1      400 kN      0 m           EN 1991-2:2003 Actions on ...
 """
 
 from __future__ import annotations
@@ -48,14 +48,14 @@ def _short(text: str, width: int = 48) -> str:
 def library_table(rows: Sequence[dict[str, Any]]) -> str:
     """The library listing: one line a model (rows from
     :func:`vehicles.output.describe.summary`)."""
-    table = [["name", "units", "cases", "train load", "train length", "standard"]]
+    table = [["name", "category", "units", "cases", "train load", "train length", "standard"]]
     for row in rows:
         unit = labels(row["units"])
         load = _quantity(row["total_load"], unit.force)
         if row["unlimited_uniform"]:
             load += " + unlimited uniform"
-        table.append([row["name"], row["units"], str(row["cases"]), load,
-                      _quantity(row["length"], unit.length), _short(row["standard"])])
+        table.append([row["name"], row["category"] or "-", row["units"], str(row["cases"]),
+                      load, _quantity(row["length"], unit.length), _short(row["standard"])])
     return _columns(table)
 
 
@@ -105,10 +105,30 @@ def _case_lines(number: int, case: dict[str, Any], unit: Any) -> list[str]:
     return lines
 
 
+def _traffic_lines(model: dict[str, Any]) -> list[str]:
+    """Share of each lorry by traffic type, and heavy vehicles a year by traffic category."""
+    lines: list[str] = []
+    if model["traffic_types"]:
+        names = list(dict.fromkeys(c for t in model["traffic_types"] for c in t["shares"]))
+        rows = [["traffic type", *names]]
+        rows += [[t["name"], *(f"{_num(100 * t['shares'].get(c, 0.0))} %" for c in names)]
+                 for t in model["traffic_types"]]
+        lines += ["", "share of the heavy vehicles:", *("  " + r for r in _columns(rows)
+                                                         .splitlines())]
+        lines += [f"  {t['name']}: {t['note']}" for t in model["traffic_types"] if t["note"]]
+    if model["traffic_categories"]:
+        lines += ["", "heavy vehicles a year on one slow lane:"]
+        lines += [f"  {t['name']}: {_num(t['heavy_vehicles_per_year'])}"
+                  + (f" ({t['note']})" if t["note"] else "") for t in model["traffic_categories"]]
+    return lines
+
+
 def model_text(model: dict[str, Any]) -> str:
     """One model in full (a description from :func:`vehicles.output.describe.details`)."""
     unit = labels(model["units"])
     lines = [f"{model['name']}: {model['title']}"]
+    if model["category"]:
+        lines.append(f"category: {model['category']}")
     if model["standard"]:
         lines.append(f"standard: {model['standard']}, clause {model['clause']}")
     lines.append(f"units: {unit.force}, {unit.length}, {unit.force_per_length}, {unit.moment}"
@@ -121,6 +141,7 @@ def model_text(model: dict[str, Any]) -> str:
             acts = ", ".join([f"scales {s}" for s in item["scales"]]
                              + [f"sets {s}" for s in item["sets"]])
             lines.append(f"  {item['name']} = {_num(item['value'])} ({acts}): {item['note']}")
+    lines += _traffic_lines(model)
     if model["notes"]:
         lines += ["", "notes:", *(f"  - {note}" for note in model["notes"])]
     return "\n".join(lines)
