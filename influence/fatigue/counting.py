@@ -3,7 +3,8 @@
 Reference: ASTM E1049-85 (reapproved 2017), Standard Practices for Cycle Counting in Fatigue
 Analysis. Section 5.4.4 (rainflow counting, the 3-point method with half cycles) is delegated to
 the ``rainflow`` library (its ``extract_cycles`` implements 5.4.4 and keeps both end points as
-reversals). Section 5.4.5 (simplified rainflow counting for repeating histories: start at the
+reversals), fed with the turning points found here: its own reversal search gives a zero-range
+half cycle for a constant series and drops the end of a two-point series, both handled here. Section 5.4.5 (simplified rainflow counting for repeating histories: start at the
 largest peak or lowest valley, whichever is larger in magnitude, so that every cycle closes) is
 written here, since the library has no such mode.
 
@@ -108,6 +109,10 @@ def count_cycles(points: Sequence[float] | np.ndarray, method: Method = "rainflo
     reversals = turning_points(points, tolerance=0.0)
     if method == "repeating":
         return CycleCount(_repeating(reversals), method)
+    if len(reversals) == 2:
+        # rainflow 3.2.0 drops the end point of a two-point series; by 5.4.4 it is a half cycle
+        first, last = reversals
+        return CycleCount((Cycle(abs(last - first), 0.5, 0.5 * (first + last)),), method)
     found = tuple(Cycle(float(size), float(count), float(mean))
                   for size, mean, count, _, _ in rainflow.extract_cycles(reversals))
     return CycleCount(found, method)
