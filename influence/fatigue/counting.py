@@ -1,12 +1,15 @@
 """Rainflow cycle counting of one history, by the two practices of ASTM E1049-85 for it.
 
 Reference: ASTM E1049-85 (reapproved 2017), Standard Practices for Cycle Counting in Fatigue
-Analysis. Section 5.4.4 (rainflow counting, the 3-point method with half cycles) is delegated to
-the ``rainflow`` library (its ``extract_cycles`` implements 5.4.4 and keeps both end points as
-reversals), fed with the turning points found here: its own reversal search gives a zero-range
-half cycle for a constant series and drops the end of a two-point series, both handled here. Section 5.4.5 (simplified rainflow counting for repeating histories: start at the
-largest peak or lowest valley, whichever is larger in magnitude, so that every cycle closes) is
-written here, since the library has no such mode.
+Analysis.
+
+- 5.4.4 (rainflow counting, the 3-point method with half cycles) is delegated to the ``rainflow``
+  library (its ``extract_cycles`` implements 5.4.4 and keeps both end points as reversals), fed
+  with the turning points found here: its own reversal search gives a zero-range half cycle for a
+  constant series and drops the end of a two-point series, both handled here.
+- 5.4.5 (simplified rainflow counting for repeating histories: start at the largest peak or
+  lowest valley, whichever is larger in magnitude, so that every cycle closes) is written here,
+  since the library has no such mode.
 
 A cycle is (range, count, mean) with count 0.5 (half cycle) or 1.0; ranges and means are in the
 caller's unit.

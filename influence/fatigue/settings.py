@@ -293,11 +293,11 @@ def _section_property(entry: dict[str, Any], response: str, source: str,
             inertia = _number(entry, "inertia", None, source, item, 0.0, strict=True)
             distance = _number(entry, "distance", None, source, item, 0.0, strict=True)
             return ("inertia/distance", inertia / distance), 3
-        raise ModelError(f"a moment detail with {sorted(given) or 'no section property'}",
+        raise ModelError(f"moment detail with {sorted(given) or 'no section property'}",
                          source=source, item=item + "section_modulus",
                          fix="give section_modulus, or inertia and distance")
     if given != {"area"}:
-        raise ModelError(f"a {response} detail with {sorted(given) or 'no section property'}",
+        raise ModelError(f"{response} detail with {sorted(given) or 'no section property'}",
                          source=source, item=item + "area",
                          fix=f"give area, the area carrying the {response} force")
     return ("area", _number(entry, "area", None, source, item, 0.0, strict=True)), 2
