@@ -116,3 +116,24 @@ def test_passages_must_match_the_crossings():
     with pytest.raises(InfluenceError, match="1 passage numbers for 2 crossings"):
         assess_histories(Histories.of([[0.0, 1.0], [0.0, 2.0]]), [3.0],
                          aashto_resistance("C"), 75.0)
+
+
+def test_assess_detail_from_counted_effects():
+    """Effects [kip-ft] counted once, turned into stress by the detail: S = M x 12 / 1200 in^3;
+    life by hand with the 2020 factors: D = n (0.80 x 1.15 x S)^3 / A (category E', A = 3.9e8)."""
+    from influence.fatigue import assess_detail, fatigue_details, fatigue_settings
+    document = {"fatigue": {"standard": "AASHTO", "edition": 2020, "age_years": 20},
+                "fatigue_detail": [{"name": "cover plate", "location": "30.0",
+                                    "response": "moment", "category": "E'",
+                                    "section_modulus": 1200.0}]}
+    settings = fatigue_settings(document, "bridge.toml", units="kip-ft")
+    detail = fatigue_details(document, settings, "bridge.toml")[0]
+    assert settings is not None
+    effects = count_many(Histories.of([[0.0, 450.0, 0.0], [0.0, 300.0, -60.0, 0.0]]))
+    per_year = [365 * 400.0, 365 * 100.0]
+    life = assess_detail(detail, settings, effects, per_year)
+    stress = [450.0 * 12 / 1200, 360.0 * 12 / 1200, 300.0 * 12 / 1200, 60.0 * 12 / 1200]
+    cycles = [per_year[0], per_year[1] * 0.5, per_year[1] * 0.5, per_year[1] * 0.5]
+    by_hand = sum(n * (0.92 * s) ** 3 for n, s in zip(cycles, stress, strict=True)) / 3.9e8
+    assert math.isclose(life.damage_per_year, by_hand, rel_tol=1e-12)
+    assert math.isclose(life.remaining_years, 1 / by_hand - 20.0, rel_tol=1e-12)

@@ -127,3 +127,9 @@ def test_en_category_of_the_wrong_stress_kind():
     settings = fatigue_settings(document, "bridge.toml", "kN-m")
     with pytest.raises(ModelError, match="unknown EN detail category '71' \\(use one of 100, 80"):
         fatigue_details(document, settings, "bridge.toml")
+
+
+def test_en_refuses_lanes():
+    document = {"fatigue": {"standard": "EN", "gamma_Mf": 1.15, "adtt": 400, "lanes": 2}}
+    with pytest.raises(ModelError, match="fatigue.lanes: lanes gives p by the AASHTO table"):
+        fatigue_settings(document, "bridge.toml", "kN-m")

@@ -6,7 +6,7 @@ exact effect functions, the CLI and the report pages are wired elsewhere.
 """
 
 from influence.fatigue.aashto import aashto_curve, aashto_resistance
-from influence.fatigue.assessment import assess_counted, assess_histories
+from influence.fatigue.assessment import assess_counted, assess_detail, assess_histories
 from influence.fatigue.batch_counting import CycleBatch, count_many
 from influence.fatigue.counting import Cycle, CycleCount, count_cycles
 from influence.fatigue.damage import FatigueLife, assess_spectrum, miner_sum
@@ -39,6 +39,7 @@ __all__ = [
     "aashto_curve",
     "aashto_resistance",
     "assess_counted",
+    "assess_detail",
     "assess_histories",
     "assess_spectrum",
     "count_cycles",

@@ -8,7 +8,8 @@ the spectrum of :func:`influence.fatigue.damage.assess_spectrum`.
 
 Counting does not depend on the size of a history (its noise gate is relative), so details that
 see the same effect at the same place count once: :func:`assess_counted` takes counted effect
-histories and a stress per unit effect.
+histories and a stress per unit effect, and :func:`assess_detail` does so with a detail and the
+[fatigue] settings of a model file.
 
 Example:
     >>> from influence.fatigue.aashto import aashto_resistance
@@ -31,6 +32,7 @@ from influence.errors import InfluenceError
 from influence.fatigue.batch_counting import CycleBatch, count_many
 from influence.fatigue.damage import FatigueLife, assess_spectrum
 from influence.fatigue.histories import Histories
+from influence.fatigue.settings import FatigueDetail, FatigueSettings, detail_resistance
 from influence.fatigue.sn_curve import Resistance
 
 
@@ -84,3 +86,32 @@ def assess_counted(cycles: CycleBatch, passages_per_year: np.ndarray | Sequence[
     return assess_spectrum(cycles.ranges.ravel() * scale,
                            (cycles.counts * passages[:, None]).ravel(), resistance,
                            design_life_years, age_years)
+
+
+def assess_detail(detail: FatigueDetail, settings: FatigueSettings, effects: CycleBatch,
+                  passages_per_year: np.ndarray | Sequence[float]) -> FatigueLife:
+    """A detail's life from the counted effect histories at its location and response.
+
+    Args:
+        detail: the detail (its category, stress per unit effect, cycles per passage).
+        settings: the [fatigue] table (standard, factors, design life, age).
+        effects: counted histories of the detail's response, one row a crossing
+            [kip-ft, kip, kN-m or kN].
+        passages_per_year: passages of each crossing a year.
+
+    Example:
+        >>> doc = {"fatigue": {"standard": "AASHTO", "age_years": 20},
+        ...        "fatigue_detail": [{"name": "cover plate", "location": "30.0",
+        ...                            "response": "moment", "category": "E'",
+        ...                            "section_modulus": 1200.0}]}
+        >>> from influence.fatigue.settings import fatigue_details, fatigue_settings
+        >>> settings = fatigue_settings(doc, "bridge.toml", units="kip-ft")
+        >>> detail = fatigue_details(doc, settings, "bridge.toml")[0]
+        >>> effects = count_many(Histories.of([[0.0, 450.0, 0.0]]))  # [kip-ft]
+        >>> life = assess_detail(detail, settings, effects, [365 * 400.0])
+        >>> round(life.governing_range, 9), round(life.remaining_years, 1)  # 450 x 12 / 1200
+        (4.5, 17.6)
+    """
+    return assess_counted(effects, passages_per_year, detail_resistance(detail, settings),
+                          settings.design_life_years, settings.age_years,
+                          detail.cycles_per_passage, detail.stress_per_effect)

@@ -313,6 +313,9 @@ def _lane_fraction(given: dict[str, Any], adtt: float | None, standard: str,
         raise ModelError("both lanes and p", source=source, item="fatigue.p",
                          fix="give lanes or p, not both")
     if "lanes" in given:
+        if standard != "AASHTO":
+            raise ModelError("lanes gives p by the AASHTO table", source=source,
+                             item="fatigue.lanes", fix="give p, the single-lane fraction")
         lanes = given["lanes"]
         return _within(source, "fatigue.lanes", lambda: aashto.lane_fraction(lanes))
     if "p" in given:
