@@ -1,0 +1,67 @@
+"""A stress history reduced to its turning points (peaks, valleys and both end points).
+
+Cycle counting works on reversals only (ASTM E1049-85 (reapproved 2017), Standard Practices for
+Cycle Counting in Fatigue Analysis, 3.2 and 5.4.4). Both end points are kept: a history whose ends
+are dropped loses its half cycles and miscounts the standard's own example. A sampled history, or
+one evaluated from exact polynomial pieces in floating point, carries wiggles far smaller than
+anything of engineering interest; a gate of :data:`TURNING_POINT_TOLERANCE` times the history's
+largest absolute value keeps them out. Values are in the caller's stress or effect unit.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import numpy as np
+
+TURNING_POINT_TOLERANCE = 1e-9
+"""Smallest reversal kept, relative to the largest absolute value of the history: a change of
+direction by no more than this is treated as noise (rounding in the evaluation of exact pieces)."""
+
+
+def turning_points(
+    history: Sequence[float] | np.ndarray, tolerance: float = TURNING_POINT_TOLERANCE
+) -> tuple[float, ...]:
+    """The peaks and valleys of a history, with its first and last values, in order.
+
+    A reversal counts once the history has come back from its running extreme by more than
+    ``tolerance`` times the largest absolute value of the history (a hysteresis gate); repeated
+    values and points on a monotonic run are dropped. With ``tolerance=0`` every strict change of
+    direction is kept.
+
+    Args:
+        history: sampled or exact values in time order [stress or effect unit].
+        tolerance: relative gate, at least 0.
+
+    Returns:
+        The turning points [same unit]; empty for an empty history, one value for a constant one.
+
+    Example:
+        >>> turning_points([0.0, 1.0, 2.0, 2.0, 1.0, -1.0, 0.5])
+        (0.0, 2.0, -1.0, 0.5)
+        >>> turning_points([0.0, 5.0, 5.0 - 1e-12, 5.0, 0.0])  # a rounding wiggle at the peak
+        (0.0, 5.0, 0.0)
+        >>> turning_points([3.0, 3.0])
+        (3.0,)
+    """
+    values = np.asarray(history, dtype=float).ravel()
+    if values.size == 0:
+        return ()
+    gate = tolerance * float(np.max(np.abs(values)))
+    found = [float(values[0])]
+    direction = 0  # +1 rising, -1 falling, 0 not yet left the start
+    extreme = found[0]
+    for x in values[1:].tolist():
+        if direction == 0:
+            if abs(x - found[0]) > gate:
+                direction = 1 if x > found[0] else -1
+                extreme = x
+        elif (x - extreme) * direction >= 0:
+            extreme = x
+        elif abs(x - extreme) > gate:
+            found.append(extreme)
+            direction = -direction
+            extreme = x
+    if direction != 0:
+        found.append(extreme)
+    return tuple(found)
