@@ -1,0 +1,1 @@
+"""Load rating, posting and permit checks on plain numbers (AASHTO MBE: LRFR, LFR, ASR)."""
