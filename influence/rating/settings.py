@@ -48,7 +48,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from influence.errors import ModelError
-from influence.rating.distribution import DistributionFactors, distribution_factors
+from influence.rating.distribution import RESPONSES, DistributionFactors, distribution_factors
 from influence.rating.girder_geometry import GirderGeometry, girder_geometry_from_metric
 from influence.rating.impact import SURFACES, UNIT_SYSTEMS
 from influence.rating.live_factors import PermitCrossing
@@ -185,16 +185,24 @@ def _distribution(value: Any, units: str, source: str) -> float | GirderDistribu
                ("spacing", "span", "slab_thickness", "stiffness_parameter")}
     edge = number(value.get("edge_distance", 0.0), f"{item}.edge_distance", source)
     skew = number(value.get("skew", 0.0), f"{item}.skew", source)
+    rigid = flag(value.get("rigid_section", False), f"{item}.rigid_section", source)
     try:
         if units == "kN-m":
             geometry = girder_geometry_from_metric(**lengths, girders=girders,
                                                    edge_distance=edge, skew=skew)
         else:
             geometry = GirderGeometry(**lengths, girders=girders, edge_distance=edge, skew=skew)
+        distribution = GirderDistribution(geometry, girder, rigid)
+        for response in RESPONSES:  # the range of applicability, checked while reading
+            distribution.factors(response)
     except ModelError as error:
-        raise ModelError(error.problem, source=source, item=error.item, fix=error.fix) from None
-    rigid = flag(value.get("rigid_section", False), f"{item}.rigid_section", source)
-    return GirderDistribution(geometry, girder, rigid)
+        raise _in_file(error, source) from None
+    return distribution
+
+
+def _in_file(error: ModelError, source: str) -> ModelError:
+    """An error of a value type, placed in the file's ``[rating]`` table."""
+    return ModelError(error.problem, source=source, item=f"rating.{error.item}", fix=error.fix)
 
 
 def _permit(value: Any, units: str, source: str) -> PermitCrossing | None:
@@ -215,7 +223,7 @@ def _permit(value: Any, units: str, source: str) -> PermitCrossing | None:
         return PermitCrossing(kind, str(value.get("frequency", default_frequency)),
                               str(value.get("loading", "mixed with traffic")), weight)
     except ModelError as error:
-        raise ModelError(error.problem, source=source, item=error.item, fix=error.fix) from None
+        raise _in_file(error, source) from None
 
 
 def _levels(rating: dict[str, Any], method: str, has_permit: bool, source: str) -> tuple[str, ...]:
