@@ -43,12 +43,14 @@ from influence.rating.posting import (
     single_unit_posting,
 )
 from influence.rating.result import RatingResult, SectionEffects
-from influence.rating.settings import RatingSettings, rating_settings
+from influence.rating.section_rating import distribution_for, rate_section
+from influence.rating.settings import GirderDistribution, RatingSettings, rating_settings
 from influence.rating.tables import known_editions
 
 __all__ = [
     "Capacity",
     "DistributionFactors",
+    "GirderDistribution",
     "GirderGeometry",
     "PermitCrossing",
     "RatingResult",
@@ -62,6 +64,7 @@ __all__ = [
     "combined_member_factor",
     "condition_factor",
     "distribution_factors",
+    "distribution_for",
     "emergency_vehicle_limits",
     "fatigue_distribution",
     "girder_geometry_from_metric",
@@ -77,6 +80,7 @@ __all__ = [
     "permit_distribution",
     "permit_live_load_factor",
     "posting",
+    "rate_section",
     "rating_settings",
     "rating_tons",
     "single_unit_posting",
