@@ -13,8 +13,8 @@ from influence.errors import ModelError
 from influence.rating import (
     Capacity,
     SectionEffects,
-    distribution_for,
     distribution_factors,
+    distribution_for,
     rate_section,
     rating_settings,
 )
