@@ -11,8 +11,9 @@ from influence.analysis.lines import analyse_model
 from influence.analysis.responses import Response
 from influence.design.envelope import envelope
 from influence.errors import ModelError
-from influence.model.basis import Combination, DeadLoad, DesignBasis, LiveLoadSettings, read_design
+from influence.model.basis import Combination, DeadLoad, DesignBasis, LiveLoadSettings
 from influence.model.beamform import continuous_beam
+from influence.model.reader import read_model_file
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.search.govern import govern
 from vehicles.train import Axle, Train
@@ -73,8 +74,8 @@ def test_deflection_check_per_span() -> None:
 
 
 def test_design_basis_reads_the_bundled_example() -> None:
-    model, basis = read_design(Path(__file__).resolve().parent.parent / "examples" /
-                               "overpass.toml")
+    basis = read_model_file(Path(__file__).resolve().parent.parent / "examples" /
+                            "overpass.toml").basis
     assert basis.load_names == ("DC", "DW")
     assert basis.combinations[0].factor("DC") == (1.25, 0.90)
     assert basis.live.vehicles == ("HL-93",) and basis.live.deflection_limit == 800
@@ -93,7 +94,7 @@ def test_design_basis_errors(tmp_path: Path, extra: str, message: str) -> None:
     path.write_text('[beam]\nspans = [10.0]\nEI = 1.0e5\nsupports = ["pinned", "roller"]\n'
                     + extra)
     with pytest.raises(ModelError, match=message):
-        read_design(path)
+        read_model_file(path)
 
 
 def test_frame_supports_off_the_path_envelope_every_reaction_component() -> None:

@@ -10,6 +10,7 @@ Example:
     [0.0, 4.2672, 13.2672]
 """
 
+from vehicles.conversion import model_in
 from vehicles.errors import VehicleError
 from vehicles.library.adjust import adjusted
 from vehicles.library.catalog import get_model, library_names, load_model
@@ -21,7 +22,6 @@ from vehicles.search.placement import Placement
 from vehicles.search.sweep import sweep
 from vehicles.traffic import TrafficCategory, TrafficType
 from vehicles.train import Arrangement, Axle, Patch, Train
-from vehicles.units import model_in
 
 __all__ = [
     "Adjustment",

@@ -21,7 +21,8 @@ from influence.design.envelope import (
 from influence.design.loading import vehicles_for
 from influence.design.sections import envelope_sections
 from influence.errors import ModelError
-from influence.model.basis import DesignBasis, SectionSettings, read_design
+from influence.model.basis import DesignBasis, SectionSettings
+from influence.model.reader import read_model_file
 from influence.model.structure import Model
 from influence.output.envelope_tables import deflection_table, envelope_document, envelope_table
 from influence.output.tables import render_csv, render_json, render_table
@@ -51,7 +52,8 @@ def progress_bar(total: int, label: str, quiet: bool) -> Iterator[click.termui.P
 def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
                  step: float | None, per_span: int | None, quiet: bool,
                  adjust: tuple[str, ...] = ()) -> tuple[Analysis, Envelope]:
-    model, basis = read_design(model_file)
+    read = read_model_file(model_file)
+    model, basis = read.model, read.basis
     models, notes = resolve_vehicles(vehicles, model, basis, parse_adjustments(adjust))
     deflection_models: list[LoadModel] = []
     if basis.live.deflection_vehicles:

@@ -10,11 +10,11 @@ from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
 
+from vehicles.conversion import model_in
 from vehicles.errors import VehicleError
 from vehicles.library.adjust import adjusted
 from vehicles.library.catalog import load_model
 from vehicles.loadmodel import LoadModel
-from vehicles.units import model_in
 
 
 def vehicles_for(names: Sequence[str], units: str,

@@ -39,11 +39,10 @@ allowance, times the distribution and multiple presence factors).
 from __future__ import annotations
 
 from dataclasses import dataclass, field
-from pathlib import Path
 from typing import Any
 
 from influence.errors import ModelError
-from influence.model.reader import check_keys, model_from_document, read_number, read_toml
+from influence.model.fields import check_keys, read_number
 from influence.model.structure import Model
 
 LIVE_LOAD = "LL"
@@ -128,13 +127,6 @@ class DesignBasis:
     @property
     def load_names(self) -> tuple[str, ...]:
         return tuple(dict.fromkeys(load.load for load in self.loads))
-
-
-def read_design(path: str | Path) -> tuple[Model, DesignBasis]:
-    """Read a model file: the structure and its design basis."""
-    document = read_toml(path)
-    model = model_from_document(document, str(path))
-    return model, design_from_document(document, model, str(path))
 
 
 def design_from_document(document: dict[str, Any], model: Model, source: str = "") -> DesignBasis:

@@ -1,260 +1,98 @@
-"""Read a model file (TOML): the compact beam form or the general form of nodes and members.
+"""The one reader of model files: the structure, its design basis and the project, from one
+TOML file, with every key checked.
 
-Beam form::
+A model file holds the structure (the compact ``[beam]`` form, or ``[[nodes]]``, ``[[members]]``
+and ``[path]``; see :mod:`influence.model.structure_form`), and optionally the design basis
+(``[[loads]]``, ``[[combinations]]``, ``[live_load]``, ``[sections]``; see
+:mod:`influence.model.basis`), the title block (``[project]``), and the assessment tables
+(``[rating]``, ``[[capacity]]``, ``[fatigue]``, ``[[fatigue_detail]]``) that the rating and
+fatigue layers read. A key at the top level that belongs in one of these tables is refused with
+the table it belongs in.
 
-    title = "Three-span overpass"
-    units = "kN-m"
-    [beam]
-    spans = [24.0, 32.0, 24.0]
-    EI = [4.0e6, 6.4e6, 4.0e6]        # one value, one per span, or per span [[from, to, EI], ...]
-    supports = ["pinned", "roller", {vertical = 2.0e5}, "roller"]
-    names = ["A1", "P1", "P2", "A2"]  # optional
-    hinges = [40.0]                   # optional
-
-General form::
-
-    [[nodes]]
-    name = "A"
-    x = 0.0
-    y = 0.0
-    support = "pinned"                # or {ux = "fixed", uy = 1.0e5, rz = "free"}
-    [[members]]
-    name = "deck1"
-    start = "A"
-    end = "B"
-    EI = 2.0e6                        # or E and I
-    EA = 8.0e6                        # or E and A
-    release_start = false             # moment release (hinge) at an end
-    release_end = false
-    sliding_end = false               # true: an expansion bearing at the end (no axial force)
-    bar = false                       # true: released at both ends (a truss bar)
-    deck = true                       # the path may route along it
-    [path]
-    members = ["deck1", "deck2"]      # or start = "A" and end = "E" through deck members
-
-Every problem raises :class:`~influence.errors.ModelError` naming the file, the item and the fix.
+Example:
+    >>> import pathlib, tempfile
+    >>> path = pathlib.Path(tempfile.mkdtemp()) / "m.toml"
+    >>> _ = path.write_text('deflection_limit = 800\\n[beam]\\nspans = [10.0]\\nEI = 1.0\\n'
+    ...                     'supports = ["pinned", "roller"]\\n')
+    >>> try:
+    ...     read_model_file(path)
+    ... except ModelError as error:
+    ...     print(error.fix)
+    move deflection_limit into [live_load]
 """
 
 from __future__ import annotations
 
-import math
-import re
-import tomllib
+from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
 from influence.errors import ModelError
-from influence.model.beamform import continuous_beam
-from influence.model.path import orient, route
-from influence.model.structure import Member, Model, Node, PathLeg, Support
+from influence.model.basis import DesignBasis, design_from_document
+from influence.model.fields import check_keys, read_toml
+from influence.model.project import ProjectInfo, project_from_document
+from influence.model.structure import Model
+from influence.model.structure_form import model_from_document
 
-UNIT_SYSTEMS = ("kN-m", "kip-ft")
-TOP_KEYS = {"title", "units", "beam", "nodes", "members", "path", "loads", "combinations",
-            "live_load", "deflection_limit", "sections"}
-BEAM_KEYS = {"spans", "EI", "EA", "supports", "names", "hinges"}
-NODE_KEYS = {"name", "x", "y", "support"}
-MEMBER_KEYS = {"name", "start", "end", "EI", "EA", "E", "I", "A", "release_start",
-               "release_end", "sliding_end", "bar", "deck"}
-PATH_KEYS = {"members", "start", "end"}
-SPRING_WORDS = {"horizontal": "ux", "vertical": "uy", "rotational": "rz"}
+STRUCTURE_KEYS = ("title", "units", "beam", "nodes", "members", "path")
+BASIS_KEYS = ("loads", "combinations", "live_load", "sections")
+ASSESSMENT_KEYS = ("project", "rating", "capacity", "fatigue", "fatigue_detail")
+TOP_KEYS = (*STRUCTURE_KEYS, *BASIS_KEYS, *ASSESSMENT_KEYS)
+
+BELONGS_IN = {
+    **{key: "[beam]" for key in ("spans", "EI", "EA", "supports", "names", "hinges")},
+    **{key: "[live_load]" for key in ("distribution", "multiple_presence", "vehicles",
+                                      "deflection_limit", "deflection_vehicles", "adjust")},
+    **{key: "[sections]" for key in ("per_span", "step", "extra")},
+    **{key: "[project]" for key in ("job_number", "designed_by", "checked_by", "revision",
+                                    "client")},
+    **{key: "[rating]" for key in ("method", "edition", "adtt", "condition_factor",
+                                   "system_factor", "impact")},
+    "factors": "[[combinations]]",
+    "uniform": "[[loads]]",
+    "point": "[[loads]]",
+}
+"""Where a key belongs when it is written at the top level by mistake."""
+
+
+@dataclass(frozen=True)
+class ModelFile:
+    """Everything a model file says.
+
+    Attributes:
+        model: the structure and its travel path.
+        basis: dead loads, combinations, live-load and section settings.
+        project: the title-block fields.
+        document: the parsed TOML, for the rating and fatigue readers.
+        source: the file name.
+    """
+
+    model: Model
+    basis: DesignBasis
+    project: ProjectInfo
+    document: dict[str, Any]
+    source: str
+
+
+def read_model_file(path: str | Path) -> ModelFile:
+    """Read and check a whole model file: structure, design basis and project."""
+    source = str(path)
+    document = read_toml(path)
+    return model_file_from_document(document, source)
+
+
+def model_file_from_document(document: dict[str, Any], source: str = "") -> ModelFile:
+    """:func:`read_model_file` for a document already parsed."""
+    for key in document:
+        if key not in TOP_KEYS and key in BELONGS_IN:
+            raise ModelError(f"{key} is not a top-level key", source=source, item=key,
+                             fix=f"move {key} into {BELONGS_IN[key]}")
+    check_keys(document, set(TOP_KEYS), "top level", source)
+    model = model_from_document(document, source)
+    basis = design_from_document(document, model, source)
+    return ModelFile(model, basis, project_from_document(document, source), document, source)
 
 
 def read_model(path: str | Path) -> Model:
-    """Read and validate a model file."""
-    document = read_toml(path)
-    return model_from_document(document, str(path))
-
-
-def read_toml(path: str | Path) -> dict[str, Any]:
-    """Parse a TOML file, turning a syntax error into a one-line ModelError with its line."""
-    source = str(path)
-    try:
-        text = Path(path).read_text(encoding="utf-8")
-    except FileNotFoundError:
-        raise ModelError("file not found", source=source, fix="check the path") from None
-    except OSError as error:
-        raise ModelError(f"cannot be read ({error.strerror})", source=source,
-                         fix="check the path and permissions") from None
-    try:
-        return tomllib.loads(text)
-    except tomllib.TOMLDecodeError as error:
-        message = str(error)
-        line = re.search(r"line (\d+)", message)
-        where = f"line {line.group(1)}" if line else "file"
-        raise ModelError(f"is not valid TOML ({message})", source=source, item=where,
-                         fix="correct the syntax on that line") from None
-
-
-def model_from_document(document: dict[str, Any], source: str = "") -> Model:
-    """Build a model from parsed TOML (either form)."""
-    check_keys(document, TOP_KEYS, "top level", source)
-    title = str(document.get("title", Path(source).stem if source else "untitled"))
-    units = document.get("units", "kN-m")
-    if units not in UNIT_SYSTEMS:
-        raise ModelError(f"units {units!r} are not known", source=source, item="units",
-                         fix="use " + " or ".join(f'"{u}"' for u in UNIT_SYSTEMS))
-    has_beam = "beam" in document
-    has_general = "nodes" in document or "members" in document
-    if has_beam == has_general:
-        raise ModelError(
-            "the file must describe either a [beam] or [[nodes]] and [[members]]",
-            source=source, item="top level",
-            fix="keep one form: a [beam] table, or node and member lists with a [path]",
-        )
-    if has_beam:
-        return _beam(document["beam"], title, units, source)
-    return _general(document, title, units, source)
-
-
-def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
-    check_keys(table, BEAM_KEYS, "beam", source)
-    for key in ("spans", "EI", "supports"):
-        if key not in table:
-            raise ModelError(f"missing key {key!r}", source=source, item="beam",
-                             fix=f"add beam.{key}")
-    spans = [read_number(v, "beam.spans", source)
-             for v in _list(table["spans"], "beam.spans", source)]
-    stiffness = table["EI"]
-    if not isinstance(stiffness, list):
-        stiffness = read_number(stiffness, "beam.EI", source)
-    supports = [
-        _support(entry, f"beam.supports[{i + 1}]", source, words=SPRING_WORDS)
-        for i, entry in enumerate(_list(table["supports"], "beam.supports", source))
-    ]
-    hinges = [read_number(v, "beam.hinges", source)
-              for v in _list(table.get("hinges", []), "beam.hinges", source)]
-    names = table.get("names")
-    if names is not None:
-        names = [str(n) for n in _list(names, "beam.names", source)]
-        if len(set(names)) != len(names):
-            raise ModelError("a support name is used twice", source=source, item="beam.names",
-                             fix="give each support its own name")
-    EA = read_number(table["EA"], "beam.EA", source) if "EA" in table else None
-    return continuous_beam(spans, stiffness, supports, names=names, hinges=hinges, EA=EA,
-                           title=title, units=units, source=source)
-
-
-def _general(document: dict[str, Any], title: str, units: str, source: str) -> Model:
-    nodes = []
-    for number, entry in enumerate(_list(document.get("nodes", []), "nodes", source), start=1):
-        item = f"nodes[{number}]"
-        entry = _table(entry, item, source)
-        check_keys(entry, NODE_KEYS, item, source)
-        name = _required(entry, "name", item, source)
-        support = _support(entry.get("support", "free"), f"node {name}", source,
-                           words={"ux": "ux", "uy": "uy", "rz": "rz"})
-        x = read_number(_required(entry, "x", item, source), item, source)
-        y = read_number(_required(entry, "y", item, source), item, source)
-        nodes.append(Node(str(name), x, y, support))
-    members = []
-    for number, entry in enumerate(_list(document.get("members", []), "members", source), 1):
-        item = f"members[{number}]"
-        entry = _table(entry, item, source)
-        check_keys(entry, MEMBER_KEYS, item, source)
-        name = str(_required(entry, "name", item, source))
-        item = f"member {name}"
-        bar = bool(entry.get("bar", False))
-        members.append(Member(
-            name, str(_required(entry, "start", item, source)),
-            str(_required(entry, "end", item, source)),
-            EA=_stiffness(entry, "EA", "A", item, source),
-            EI=_stiffness(entry, "EI", "I", item, source, default=None if not bar else 1.0),
-            release_start=bar or bool(entry.get("release_start", False)),
-            release_end=bar or bool(entry.get("release_end", False)),
-            sliding_end=bool(entry.get("sliding_end", False)),
-            deck=bool(entry.get("deck", False)),
-        ))
-    if not nodes or not members:
-        raise ModelError("a general model needs nodes and members", source=source,
-                         item="top level", fix="add [[nodes]] and [[members]] entries")
-    path_table = _table(document.get("path"), "path", source)
-    check_keys(path_table, PATH_KEYS, "path", source)
-    legs: tuple[PathLeg, ...]
-    if "members" in path_table:
-        names = tuple(str(n) for n in _list(path_table["members"], "path.members", source))
-        if not names:
-            raise ModelError("path.members is empty", source=source, item="path",
-                             fix="list the members the load travels along")
-        legs = orient(tuple(members), names, source)
-    elif "start" in path_table and "end" in path_table:
-        legs = route(tuple(members), str(path_table["start"]), str(path_table["end"]), source)
-    else:
-        raise ModelError("the path is not given", source=source, item="path",
-                         fix="give path.members, or path.start and path.end nodes")
-    return Model(title=title, units=units, nodes=tuple(nodes), members=tuple(members),
-                 path=legs, source=source, form="general")
-
-
-def _stiffness(entry: dict[str, Any], product: str, section: str, item: str, source: str,
-               default: float | None = None) -> float:
-    if product in entry:
-        return read_number(entry[product], f"{item}.{product}", source)
-    if "E" in entry and section in entry:
-        modulus = read_number(entry["E"], f"{item}.E", source)
-        return modulus * read_number(entry[section], f"{item}.{section}", source)
-    if default is not None:
-        return default
-    raise ModelError(f"no {product} given", source=source, item=item,
-                     fix=f"give {product}, or E and {section}")
-
-
-def _support(entry: Any, item: str, source: str, words: dict[str, str]) -> Support:
-    if isinstance(entry, str):
-        try:
-            return Support.named(entry)
-        except ModelError as error:
-            raise ModelError(error.problem, source=source, item=item, fix=error.fix) from None
-    if isinstance(entry, dict):
-        allowed = set(words) | {"kind"}
-        check_keys(entry, allowed, item, source)
-        base = Support.named(str(entry.get("kind", "free")))
-        values: dict[str, Any] = {"ux": base.ux, "uy": base.uy, "rz": base.rz}
-        for word, direction in words.items():
-            if word in entry:
-                value = entry[word]
-                values[direction] = value if isinstance(value, str) else read_number(
-                    value, f"{item}.{word}", source)
-        try:
-            return Support(**values)
-        except ModelError as error:
-            raise ModelError(error.problem, source=source, item=item, fix=error.fix) from None
-    raise ModelError(f"support {entry!r} is neither a kind nor a table of springs",
-                     source=source, item=item,
-                     fix='write "pinned", "roller", "fixed", "free" or {vertical = 1.0e5}')
-
-
-def check_keys(table: dict[str, Any], allowed: set[str], item: str, source: str) -> None:
-    """Refuse a key that is not among ``allowed``, naming the allowed ones."""
-    for key in table:
-        if key not in allowed:
-            raise ModelError(f"unknown key {key!r}", source=source, item=item,
-                             fix="allowed keys: " + ", ".join(sorted(allowed)))
-
-
-def _required(table: dict[str, Any], key: str, item: str, source: str) -> Any:
-    if key not in table:
-        raise ModelError(f"missing key {key!r}", source=source, item=item, fix=f"add {key}")
-    return table[key]
-
-
-def _table(value: Any, item: str, source: str) -> dict[str, Any]:
-    if value is None:
-        return {}
-    if not isinstance(value, dict):
-        raise ModelError(f"expected a table, got {value!r}", source=source, item=item,
-                         fix="write it as a TOML table")
-    return value
-
-
-def _list(value: Any, item: str, source: str) -> list[Any]:
-    if not isinstance(value, list):
-        raise ModelError(f"expected a list, got {value!r}", source=source, item=item,
-                         fix="write it as [a, b, ...]")
-    return value
-
-
-def read_number(value: Any, item: str, source: str) -> float:
-    if isinstance(value, bool) or not isinstance(value, int | float) or not math.isfinite(value):
-        raise ModelError(f"expected a number, got {value!r}", source=source, item=item,
-                         fix="write a plain number")
-    return float(value)
+    """Read a model file and return its structure (the whole file is checked)."""
+    return read_model_file(path).model

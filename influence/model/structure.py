@@ -20,6 +20,7 @@ from dataclasses import dataclass, field
 from functools import cached_property
 
 from influence.errors import ModelError
+from vehicles.units import SYSTEMS
 
 Restraint = str | float
 """'fixed', 'free', or a spring stiffness (positive number)."""
@@ -194,6 +195,10 @@ class Model:
     form: str = "general"
 
     def __post_init__(self) -> None:
+        if not isinstance(self.units, str) or self.units not in SYSTEMS:
+            raise ModelError(f"units {self.units!r} are not known", source=self.source,
+                             item="units",
+                             fix="use " + " or ".join(f'"{name}"' for name in SYSTEMS))
         for name in ("nodes", "members", "path", "hinge_nodes"):
             object.__setattr__(self, name, tuple(getattr(self, name)))
         _check_unique(self.nodes, "node", self.source)

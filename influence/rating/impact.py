@@ -27,10 +27,10 @@ from dataclasses import dataclass
 
 from influence.errors import ModelError
 from influence.rating.tables import FACTORS_FILE, data_file
+from vehicles.units import M_PER_FT as FOOT
+from vehicles.units import SYSTEMS
 
-FOOT = 0.3048
-"""Metres in one foot (exact by definition)."""
-UNIT_SYSTEMS = ("kN-m", "kip-ft")
+UNIT_SYSTEMS = tuple(SYSTEMS)
 SURFACES = ("standard", "minor surface deviations", "smooth riding surface")
 
 

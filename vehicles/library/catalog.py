@@ -24,11 +24,11 @@ from collections.abc import Mapping
 from importlib import resources
 from pathlib import Path
 
+from vehicles.conversion import model_in
 from vehicles.errors import VehicleError
 from vehicles.library.adjust import adjusted
 from vehicles.library.files import parse_load_model, read_load_model
 from vehicles.loadmodel import LoadModel
-from vehicles.units import model_in
 
 
 def _key(name: str) -> str:
