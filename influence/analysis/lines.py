@@ -29,6 +29,7 @@ from influence.analysis.solve import Structure, analyse
 from influence.model.path import PathGeometry, trace
 from influence.model.structure import Model
 from piecewise import Batch, Extremes, Piecewise
+from piecewise.polynomial import taylor_shift
 from piecewise.tolerances import NOISE, POSITION
 
 
@@ -155,8 +156,17 @@ class Analysis:
         in_member = [weights[:, used] @ loads for used, loads, _ in self._leg_terms]
         in_chainage = [base @ change for base, (_, _, change) in
                        zip(in_member, self._leg_terms, strict=True)]
-        pieces = [self._pieces(e, [b[i] for b in in_member], [c[i] for c in in_chainage])
-                  for i, e in enumerate(extractions)]
+        pending: list[tuple[int, int, np.ndarray, float, float]] = []
+        pieces = [self._pieces(i, e, [b[i] for b in in_member], [c[i] for c in in_chainage],
+                               pending) for i, e in enumerate(extractions)]
+        if pending:
+            # the own member's pieces re-expressed in chainage, all in one Taylor shift
+            polys = np.array([poly for _, _, poly, _, _ in pending]).T
+            offsets = np.array([offset for _, _, _, offset, _ in pending])
+            scales = np.array([scale for _, _, _, _, scale in pending])
+            rows = taylor_shift(polys, offsets) * scales ** np.arange(TERMS)[:, None]
+            for column, (line, slot, _, _, _) in enumerate(pending):
+                pieces[line][1][:, slot] = rows[:, column]
         batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned()
         # the interior region of a moment: a uniform load on the whole path hogs there
         positive, negative = batch.areas()
@@ -189,11 +199,15 @@ class Analysis:
             terms.append((dofs[used], frame.equivalent_loads[used], change))
         return terms
 
-    def _pieces(self, extraction: Extraction, in_member: list[np.ndarray],
-                in_chainage: list[np.ndarray]) -> tuple[np.ndarray, np.ndarray]:
-        """(breakpoints, coefficients (TERMS, pieces)) of one line, before cleaning."""
+    def _pieces(self, line: int, extraction: Extraction, in_member: list[np.ndarray],
+                in_chainage: list[np.ndarray],
+                pending: list[tuple[int, int, np.ndarray, float, float]],
+                ) -> tuple[np.ndarray, np.ndarray]:
+        """(breakpoints, coefficients (TERMS, pieces)) of one line, before cleaning; the pieces
+        of the member holding the section are left to fill, listed in ``pending`` as
+        (line, piece, polynomial in the member position, offset, scale)."""
         breakpoints: list[float] = [0.0]
-        rows: list[np.ndarray] = []
+        rows: list[np.ndarray | None] = []
         section = extraction.section_chainage
         tolerance = POSITION * max(self.path.total_length, 1.0)
         for index, leg in enumerate(self.path.legs):
@@ -214,16 +228,18 @@ class Analysis:
                     continue
                 start = leg.start_chainage + lo
                 # member position a = offset + scale * (chainage - start)
-                if leg.against_member:
-                    row = substitute(poly, leg.length - lo, -1.0)
-                else:
-                    row = substitute(poly, lo, 1.0)
-                rows.append(row)
+                offset, scale = (leg.length - lo, -1.0) if leg.against_member else (lo, 1.0)
+                pending.append((line, len(rows), poly, offset, scale))
+                rows.append(None)
                 end = start + (hi - lo)
                 if section is not None and abs(end - section) <= tolerance:
                     end = section  # the section's own chainage, not a sum that differs by an ulp
                 breakpoints.append(end)
-        return np.array(breakpoints), np.array(rows).reshape(-1, TERMS).T
+        coefficients = np.zeros((TERMS, len(rows)))
+        for slot, row in enumerate(rows):
+            if row is not None:
+                coefficients[:, slot] = row
+        return np.array(breakpoints), coefficients
 
 
 def _in_travel_order(pieces: list[tuple[float, float, np.ndarray]], against: bool,

@@ -71,7 +71,14 @@ class Effects:
 
     def arrangement(self, k: int) -> Arrangement | None:
         """The train as placed for function ``k``."""
-        return arrangement_of(self.case, self.ranged_values[k])
+        values = self.ranged_values[k]
+        if values not in self._arrangements:
+            self._arrangements[values] = arrangement_of(self.case, values)
+        return self._arrangements[values]
+
+    @cached_property
+    def _arrangements(self) -> dict[RangedValues, Arrangement | None]:
+        return {}
 
     def shifted(self, sense: str, shift: np.ndarray) -> Effects:
         """The same functions plus a constant per line, labelled with another sense (for cases
