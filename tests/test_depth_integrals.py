@@ -32,6 +32,6 @@ def test_against_high_precision(coefficients: tuple[float, float, float],
         for origin in (0.0, 7.0):
             values, errors = piece_moments(coefficients, exponent, origin, power, T)
             for upper, value, error in zip(T, values, errors, strict=True):
-                exact = mpmath.quad(lambda t: (origin + t) ** power
+                exact = mpmath.quad(lambda t, o=origin, k=power: (o + t) ** k
                                     * (c0 + c1 * t + c2 * t * t) ** (-exponent), [0, upper])
                 assert abs(value - float(exact)) <= max(error, 1e-300)

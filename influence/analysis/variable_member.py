@@ -137,11 +137,9 @@ class VariableMemberLaw:
         system[1, [_THETA0, _M0, _V0]] = L, L * F0 - F1, L * F1 - F2
         by_d[1, [1, 4]] = -1.0, 1.0
         by_transverse[1] = deflection_load(c, L).times(-1.0)
-        if self.release_start:
-            system[2, _M0] = 1.0
-        else:
-            system[2, _THETA0] = 1.0
-            by_d[2, 2] = 1.0
+        # start: no moment at a release, else the node's rotation
+        system[2, _M0 if self.release_start else _THETA0] = 1.0
+        by_d[2, 2] = 0.0 if self.release_start else 1.0
         if self.release_end:
             system[3, [_M0, _V0]] = 1.0, L
             by_transverse[3] = polynomial(c, [-L, 1.0])

@@ -21,10 +21,8 @@ x = Symbol("x", real=True)
 @pytest.mark.parametrize("shape", ["straight", "parabolic"])
 def test_exact_flexibilities(shape: str) -> None:
     L, c, r = Rational(10), Rational(3), Rational(3, 2)
-    if shape == "straight":
-        depth = 1 + r * (1 - x / c)
-    else:
-        depth = 1 + r * (1 - x / c) ** 2
+    power = 1 if shape == "straight" else 2
+    depth = 1 + r * (1 - x / c) ** power
     weights = {
         "start": (1 - x / L) ** 2,
         "end": (x / L) ** 2,
