@@ -25,6 +25,12 @@ from influence.element import FIELDS
 DENSE = 4001
 """Load positions at which the exact function is compared with its pieces."""
 
+LINE_BOUND = 2e-11
+"""Largest bound [-] expected for a whole line, as a fraction of its scale (truncation 1e-12 plus
+the rounding allowance)."""
+
+CUBIC_AGREEMENT = 1e-13
+
 SECTIONS = {
     "parabolic both ends": haunched_section(
         10.0, 1.0, 1.0, start=Haunch("parabolic", 1.0, length_fraction=0.2),
@@ -70,7 +76,7 @@ def test_a_whole_line_inside_a_member() -> None:
     scale = float(np.abs(np.where(a < s, behind.values(a), ahead.values(a))).max())
     for form, lo, hi in ((behind, 0.0, s), (ahead, s, section.length)):
         pieces = certify(form, lo, hi, scale=scale)
-        assert deviation(form, lo, hi, pieces) <= pieces.bound <= 2e-11 * scale
+        assert deviation(form, lo, hi, pieces) <= pieces.bound <= LINE_BOUND * scale
 
 
 @pytest.mark.parametrize("quantity", FIELDS)
@@ -119,4 +125,4 @@ def test_prismatic_pieces_are_cubics() -> None:
     # fixed-end moment P a b^2 / L^2 as a cubic: 8^-2 (64 a - 16 a^2 + a^3)
     cubic = np.zeros(pieces.degree + 1)
     cubic[:4] = [0.0, 1.0, -0.25, 1 / 64]
-    assert np.allclose(pieces.coefficients[0], cubic, rtol=0, atol=1e-13)
+    assert np.allclose(pieces.coefficients[0], cubic, rtol=0, atol=CUBIC_AGREEMENT)
