@@ -1,8 +1,8 @@
 """One member of varying section: stiffness, fixed-end forces and in-member fields for a unit load.
 
 The law of :class:`influence.analysis.element.MemberLaw` with EI(x) and EA(x) in place of
-constants. The unit load at ``a`` has local components ``p_axial`` (along x') and ``p_transverse`` (along y'); with
-the start-end unknowns w = (N0, theta0, M0, V0),
+constants. The unit load at ``a`` has local components ``p_axial`` (along x') and
+``p_transverse`` (along y'); with the start-end unknowns w = (N0, theta0, M0, V0),
 
     N(x) = N0 - p_axial H(x - a)             u(x) = u_start + ∫_0^x N / EA
     V(x) = V0 + p_transverse H(x - a)        M(x) = M0 + V0 x + p_transverse <x - a>
