@@ -18,7 +18,6 @@ from dataclasses import dataclass, replace
 from functools import partial
 
 import numpy as np
-from scipy.optimize import minimize_scalar
 
 from influence.analysis.lines import Analysis, InfluenceLine
 from influence.analysis.responses import Response
@@ -253,6 +252,8 @@ def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: De
         if hi > lo:
             objective = partial(_negative_deflection, analysis=analysis, models=models,
                                 trials=trials)
+            from scipy.optimize import minimize_scalar  # loaded only for the refinement
+
             search = minimize_scalar(objective, bounds=(lo, hi), method="bounded",
                                      options={"xatol": DEFLECTION_REFINEMENT * span.length})
             if -search.fun > value:

@@ -21,7 +21,6 @@ from __future__ import annotations
 from dataclasses import dataclass
 from functools import cached_property
 
-import networkx as nx
 
 from influence.errors import LocationError, ModelError
 from influence.model.structure import Member, Model, PathLeg
@@ -165,6 +164,8 @@ def route(
 ) -> tuple[PathLeg, ...]:
     """The path from node ``start`` to node ``end`` through deck members (shortest by length
     count of members), each leg oriented along the way travelled."""
+    import networkx as nx  # only routing needs a graph library; loaded when a path is routed
+
     graph = nx.MultiGraph()
     for member in members:
         if member.deck:
