@@ -21,7 +21,6 @@ from __future__ import annotations
 from dataclasses import dataclass
 from functools import cached_property
 
-
 from influence.errors import LocationError, ModelError
 from influence.model.structure import Member, Model, PathLeg
 
