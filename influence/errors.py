@@ -6,28 +6,12 @@ prints it and exits with status 1.
 
 from __future__ import annotations
 
+from vehicles.errors import ToolError
 
-class InfluenceError(Exception):
-    """Base of every error this package raises on purpose.
 
-    Attributes:
-        problem: what was wrong, with the offending value.
-        source: the file (or "" when built in Python).
-        item: the key, member, node or location at fault.
-        fix: what the user should do.
-    """
-
-    def __init__(self, problem: str, *, source: str = "", item: str = "", fix: str = "") -> None:
-        self.problem = problem
-        self.source = source
-        self.item = item
-        self.fix = fix
-        super().__init__(self.one_line())
-
-    def one_line(self) -> str:
-        where = ": ".join(part for part in (self.source, self.item) if part)
-        text = f"{where}: {self.problem}" if where else self.problem
-        return f"{text} ({self.fix})" if self.fix else text
+class InfluenceError(ToolError):
+    """Base of every error this package raises on purpose (see :class:`vehicles.errors.ToolError`
+    for its fields: problem, source, item, fix)."""
 
 
 class ModelError(InfluenceError, ValueError):

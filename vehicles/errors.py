@@ -1,4 +1,5 @@
-"""Errors raised by the vehicles package.
+"""The tool's errors: one base that every error raised on purpose derives from, and the error of
+the vehicles package.
 
 Every error says what was wrong, the offending value and the fix, in one line; the CLI prints the
 message and exits with status 1.
@@ -7,12 +8,13 @@ message and exits with status 1.
 from __future__ import annotations
 
 
-class VehicleError(ValueError):
-    """Base of every error about a load train, a vehicle file or a load model.
+class ToolError(ValueError):
+    """Base of every error this tool raises on purpose (``influence`` derives its own from it).
 
     Attributes:
+        problem: what was wrong, with the offending value.
         source: file or library name the problem was found in ("" when built in Python).
-        item: the key, axle or case at fault ("" when it is the whole thing).
+        item: the key, member, axle, case or location at fault ("" when it is the whole thing).
         fix: what the user should change.
     """
 
@@ -28,3 +30,7 @@ class VehicleError(ValueError):
         where = ": ".join(part for part in (self.source, self.item) if part)
         text = f"{where}: {self.problem}" if where else self.problem
         return f"{text} ({self.fix})" if self.fix else text
+
+
+class VehicleError(ToolError):
+    """Base of every error about a load train, a vehicle file or a load model."""

@@ -10,8 +10,7 @@ import sys
 
 import click
 
-from influence.errors import InfluenceError
-from vehicles.errors import VehicleError
+from vehicles.errors import ToolError
 
 
 class _OneLineErrors(click.Group):
@@ -20,7 +19,7 @@ class _OneLineErrors(click.Group):
     def invoke(self, ctx: click.Context) -> object:
         try:
             return super().invoke(ctx)
-        except (InfluenceError, VehicleError) as error:
+        except ToolError as error:
             if ctx.obj and ctx.obj.get("debug"):
                 raise
             click.echo(f"error: {error}", err=True)
