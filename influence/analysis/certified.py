@@ -202,8 +202,8 @@ class PieceCertificate:
     rho: float
 
 
-def truncation_bounds(form: IntegralForm, piece: int, lo: float, hi: float
-                      ) -> dict[int, tuple[float, float]]:
+def truncation_bounds(form: IntegralForm, piece: int, lo: float, hi: float,
+                      degrees: tuple[int, ...] = DEGREES) -> dict[int, tuple[float, float]]:
     """For each degree N of :data:`DEGREES`, the smallest proven bound 4 M rho^-N / (rho - 1)
     over :data:`RHOS` and the rho that gives it, for the stretch [lo, hi] of depth piece
     ``piece`` [function units]."""
@@ -211,7 +211,7 @@ def truncation_bounds(form: IntegralForm, piece: int, lo: float, hi: float
     M = form.ellipse_bounds(piece, centre, half, RHOS, lo)
     out = {}
     with np.errstate(over="ignore", invalid="ignore"):
-        for N in DEGREES:
+        for N in degrees:
             bounds = 4 * M * RHOS ** (-float(N)) / (RHOS - 1)
             bounds = np.where(np.isfinite(bounds), bounds, np.inf)
             best = int(np.argmin(bounds))
@@ -249,8 +249,8 @@ def certify_piece(form: IntegralForm, piece: int, lo: float, hi: float, degree: 
 
 
 def certify(form: IntegralForm, lo: float, hi: float, *,
-            tolerance: float = CERTIFIED_TOLERANCE, scale: float | None = None
-            ) -> CertifiedPieces:
+            tolerance: float = CERTIFIED_TOLERANCE, scale: float | None = None,
+            degrees: tuple[int, ...] = DEGREES) -> CertifiedPieces:
     """Certified polynomial pieces of a function of the load position on [lo, hi].
 
     Args:
@@ -264,6 +264,8 @@ def certify(form: IntegralForm, lo: float, hi: float, *,
         scale: the size the tolerance is relative to [function units]; by default the largest
             |function| sampled on [lo, hi]. Give the whole influence line's scale when the
             function is one member's share of it.
+        degrees: the Chebyshev degrees a piece may use, lowest first (a piece is split when
+            none meets the tolerance): fewer, lower degrees give more pieces of lower degree.
 
     Returns:
         Pieces whose every bound is at most tolerance x scale.
@@ -291,7 +293,7 @@ def certify(form: IntegralForm, lo: float, hi: float, *,
         a, b = queue.pop()
         piece = int(profile.piece_of(np.array([(a + b) / 2]))[0])
         certificate = None
-        for N, (bound, rho) in truncation_bounds(form, piece, a, b).items():
+        for N, (bound, rho) in truncation_bounds(form, piece, a, b, degrees).items():
             if bound <= allowed:
                 candidate = certify_piece(form, piece, a, b, N, bound, rho)
                 if candidate.rounding <= ROUNDING_LIMIT * scale:
