@@ -231,9 +231,10 @@ def _along(chainage: float | None) -> float:
 
 
 def _permit_limit_states(settings: RatingSettings) -> tuple[str, ...]:
-    """The limit states at the permit level: those the settings name there, else the MBE's."""
+    """The limit states at the permit level: those the MBE requires there, and the optional
+    ones the settings name."""
     if settings.method != "LRFR" or settings.material is None:
         return settings.limit_states
     rows = limit_states(settings.material, "permit")
-    named = tuple(ls for ls in settings.limit_states if ls in {r.limit_state for r in rows})
-    return named or tuple(r.limit_state for r in rows if not r.optional)
+    return tuple(r.limit_state for r in rows
+                 if not r.optional or r.limit_state in settings.limit_states)
