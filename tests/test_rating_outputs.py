@@ -12,6 +12,7 @@ from influence.output.rating_tables import (
     not_rated_table,
     permit_table,
     postings_table,
+    rating_report_tables,
     ratings_table,
     summary_table,
 )
@@ -64,3 +65,9 @@ def test_figure_of_the_governing_placements(ratings):
     import matplotlib.pyplot as plt
 
     plt.close(figure)
+
+
+def test_report_pages_in_order(ratings):
+    titles = [title for title, _ in rating_report_tables(ratings)]
+    assert titles[:2] == ["Load rating: lowest factor per vehicle and level",
+                          "Load rating: postings"]

@@ -16,14 +16,16 @@ from influence.output.governing_tables import placement_fields
 from influence.output.tables import Table
 from influence.rating.permit_check import PermitCheck
 from influence.rating.ratings import Ratings, SectionRating
+from influence.rating.tables import POSTING_FILE, data_file
 from vehicles.units import labels
 
 MEMORY_NOTE = ("Legal and rating vehicles' axle data are from memory, unconfirmed against the "
-               "standard, where their notes say so (listed below): check them before use.")
+               "standard, where the vehicles' notes say so: check them before use.")
 
 
-def rating_header(ratings: Ratings, what: str) -> list[str]:
-    """The lines that open every rating output."""
+def rating_header(ratings: Ratings, what: str, notes: bool = True) -> list[str]:
+    """The lines that open every rating output; the run's notes in full, or (``notes`` False,
+    for the tables that follow the summary) a pointer to them."""
     s = ratings.settings
     basis = (f"Rating: {s.method}, {s.edition}, ADTT "
              + ("unknown" if s.adtt is None else f"{s.adtt:g}")
@@ -33,7 +35,8 @@ def rating_header(ratings: Ratings, what: str) -> list[str]:
             "Rating factors are magnitudes in the sense rated (positive: sagging moment, "
             "positive shear, tension; negative: hogging moment, negative shear, compression); "
             "inf: the vehicle does not load the section in that sense.",
-            MEMORY_NOTE, *(f"Note: {n}" for n in ratings.notes)]
+            MEMORY_NOTE, *((f"Note: {n}" for n in ratings.notes) if notes else
+                           ("Notes on the vehicles and allowances: see the summary.",))]
 
 
 def _where(r: SectionRating) -> str:
@@ -170,11 +173,16 @@ def ratings_table(ratings: Ratings) -> Table:
              r.result.factored_dead, r.live_with_impact, r.result.live_factor, r.result.impact,
              r.result.effects.distribution, _unit(r, ratings.units), _where(r))
             for r in ratings.ratings]
-    header = rating_header(ratings, "rating factors")
+    header = rating_header(ratings, "rating factors", notes=False)
     header.append("C: capacity in the sense (phi_c phi_s phi Rn, f_R or the allowable effect); "
                   "factored dead: the sum of the factored permanent terms; LL+IM: the vehicle "
                   "with its allowance plus the lane load, times the distribution factor.")
     return Table(header, columns, rows)
+
+
+def _governing(ratings: Ratings, vehicle: str, level: str) -> str:
+    low = ratings.lowest(vehicle, level)
+    return "-" if low is None else f"{low.section} {low.response} {low.sense}"
 
 
 def postings_table(ratings: Ratings) -> Table:
@@ -184,29 +192,30 @@ def postings_table(ratings: Ratings) -> Table:
     for v in p.legal:
         q = v.posting
         rows.append((v.vehicle, "legal", q.rating_factor, v.weight_tons, q.rating, q.action,
-                     "-" if q.load is None else q.load,
-                     f"{v.governing.section} {v.governing.response} {v.governing.sense}"))
+                     "-" if q.load is None else q.load, _governing(ratings, v.vehicle, p.level)))
     if p.single_unit is not None:
         su = p.single_unit
         rows.append(("NRL", "screening", su.screening_factor, "-", "-",
-                     "SU4-SU7 need no posting" if su.screened_out else "rate SU4-SU7", "-", "-"))
+                     "SU4-SU7 need no posting" if su.screened_out else "rate SU4-SU7", "-",
+                     _governing(ratings, "NRL", p.level)))
         for name, q in su.postings:
             rows.append((name, "single unit", q.rating_factor, q.weight, q.rating, q.action,
-                         "-" if q.load is None else q.load, "-"))
+                         "-" if q.load is None else q.load, _governing(ratings, name, p.level)))
     if p.emergency is not None:
         ev = p.emergency
         text = ("no EV posting" if not ev.posted else
                 f"single axle {ev.single_axle_kip:g} kip, tandem {ev.tandem_kip:g} kip, "
                 f"gross {ev.gross_kip:g} kip")
         rows.append(("EV2, EV3", "emergency", "-", "-", "-", text, "-", "-"))
-    header = rating_header(ratings, f"postings (from the {p.level} level)")
-    header += [f"Posting: {p.legal[0].posting.mark}." if p.legal else "",
+    header = rating_header(ratings, f"postings (from the {p.level} level)", notes=False)
+    header += [f"Posting law: {data_file(POSTING_FILE)['law']['mark']}.",
                "RT = RF x W; posted load W/0.7 (RF - 0.3) for 0.3 <= RF < 1.0, rounded down to "
-               "the sign increment; below 0.3 consider closing."]
+               "the sign increment; below 0.3 consider closing. W and loads in tons of 2000 lb; "
+               "the factor of each vehicle is its lowest over every section, response, sense "
+               "and limit state at the posting level."]
     header += [f"Note: {n}" for n in p.notes]
-    return Table([h for h in header if h], (
-        "vehicle", "kind", "RF [-]", "W [ton]", "RT [ton]", "action", "posted load [ton]",
-        "governing"), rows)
+    return Table(header, ("vehicle", "kind", "RF [-]", "W [ton]", "RT [ton]", "action",
+                          "posted load [ton]", "governing"), rows)
 
 
 def not_rated_table(ratings: Ratings) -> Table:
@@ -214,7 +223,7 @@ def not_rated_table(ratings: Ratings) -> Table:
     length = labels(ratings.units).length
     rows = [(n.section, "-" if n.chainage is None else n.chainage, n.response, n.side, n.sense,
              n.level or "-", n.limit_state or "-", n.reason) for n in ratings.not_rated]
-    return Table(rating_header(ratings, "not rated"), (
+    return Table(rating_header(ratings, "not rated", notes=False), (
         "section", f"chainage [{length}]", "response", "side", "sense", "level", "limit state",
         "reason"), rows)
 
@@ -268,3 +277,14 @@ def permit_document(check: PermitCheck) -> dict[str, Any]:
                      for v in check.sections],
         **document,
     }
+
+
+def rating_report_tables(ratings: Ratings) -> list[tuple[str, Table]]:
+    """The rating pages' tables, titled, in page order: the lowest factors, the postings, every
+    factor, and what was not rated (content for the report; the report module lays it out)."""
+    pages = [("Load rating: lowest factor per vehicle and level", summary_table(ratings)),
+             ("Load rating: postings", postings_table(ratings)),
+             ("Load rating: every factor", ratings_table(ratings))]
+    if ratings.not_rated:
+        pages.append(("Load rating: not rated", not_rated_table(ratings)))
+    return pages
