@@ -218,3 +218,13 @@ def test_legal_level_of_lfr_is_refused(tandem):
 def test_a_vehicle_outside_the_levels_asked_is_refused():
     with pytest.raises(ModelError, match="HL-93 .design. is rated at"):
         rate(model_file(simple_span(SPAN)), ("HL-93",), ("legal",))
+
+
+def test_live_load_distribution_when_rating_gives_none(tandem):
+    document = simple_span(SPAN, rating={"method": "LRFR", "material": "steel",
+                                         "limit_states": ["Strength I"]})
+    document["live_load"] = {"distribution": 0.4, "multiple_presence": 1.2}
+    ratings = rate(model_file(document), (tandem,), ("legal",))
+    rating = ratings.ratings[0]
+    assert rating.result.effects.distribution == pytest.approx(0.48)
+    assert "[live_load]" in rating.distribution_basis

@@ -345,7 +345,8 @@ class _Run:
         section = self.rated[index]
         settings = self._vehicle_settings(vehicle, impact.fraction)
         permit_rule = level in self.permit_levels
-        g, g_basis = distribution_basis(settings, section.response.kind, permit_rule)
+        g, g_basis = distribution_basis(settings, section.response.kind, permit_rule,
+                                        self.inputs.model_file.basis.live.scale)
         dc, dw, p = self.inputs.terms.split(dict(section.dead))
         if settings.method == "LRFR":
             effects = SectionEffects(sense, dc, dw, p, live=live.vehicle, lane=live.lane,

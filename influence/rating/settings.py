@@ -120,7 +120,8 @@ class RatingSettings:
         overlay_measured: wearing surface measured (gDW = 1.25 at strength).
         impact: IM or I override as a fraction, None to use the rules.
         surface: riding surface for the LRFR IM reduction.
-        distribution: lanes per girder, a girder geometry, or None (effects already per girder).
+        distribution: lanes per girder, a girder geometry, or None (a rating run then takes
+            the model file's [live_load] distribution x multiple presence, 1 by default).
         permit: the permit crossing, None when no permit is checked.
         sign_increment: posted loads rounded down to this [tons], None for no rounding.
         dead_loads: (load name, "DC" | "DW" | "P") as ``[rating.dead_loads]`` places them

@@ -29,18 +29,23 @@ NO_DISTRIBUTION = ("1: the effects are those of the girder line modelled (no dis
                    "[rating])")
 
 
-def distribution_basis(settings: RatingSettings, response: str,
-                       permit: bool) -> tuple[float, str]:
+def distribution_basis(settings: RatingSettings, response: str, permit: bool,
+                       live_scale: float = 1.0) -> tuple[float, str]:
     """Lanes per girder for a response, and how they were found.
 
     Args:
         settings: the ``[rating]`` settings.
         response: "moment", "shear" or "axial" (axial takes the moment factors).
         permit: whether the permit's distribution rule applies (a permit level).
+        live_scale: the model file's ``[live_load]`` distribution x multiple presence, used
+            when ``[rating]`` gives none [-].
     """
     value = settings.distribution
     if value is None:
-        return 1.0, NO_DISTRIBUTION
+        if live_scale == 1.0:
+            return 1.0, NO_DISTRIBUTION
+        return live_scale, (f"{live_scale:g} lanes per girder: [live_load] distribution x "
+                            "multiple presence (no distribution in [rating])")
     if isinstance(value, float):
         return value, f"{value:g} lanes per girder as [rating] gives it"
     factors = value.factors(response)
