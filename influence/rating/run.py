@@ -193,8 +193,10 @@ def rate_inputs(inputs: RatingInputs, settings: RatingSettings, vehicles: Sequen
     found = tuple(r for _, r in sorted(run.found, key=lambda item: item[0]))
     rated_vehicles = tuple(_rated_vehicle(m, lv) for m, lv in chosen)
     notes += _vehicle_notes(rated_vehicles) + run.notes() + _own_allowances(chosen)
+    missing = tuple(entry for key, entry in sorted(
+        run.not_rated.items(), key=lambda item: (item[0][0], SENSES.index(item[0][1]))))
     return Ratings(model.title, model.units, source, settings, asked, rated_vehicles, found,
-                   tuple(run.not_rated.values()),
+                   missing,
                    postings_of(found, rated_vehicles, settings.method, settings.sign_increment),
                    tuple(dict.fromkeys(notes)))
 
@@ -395,7 +397,7 @@ def allowance(settings: RatingSettings, level: str, span_length: float, units: s
         level: rating level.
         span_length: the section's span [length of ``units``].
         units: "kip-ft" or "kN-m".
-        crawl: an escorted permit crossing at 10 mph or less (LRFR: none).
+        crawl: an escorted permit crossing at 10 mph or less: none.
 
     Example:
         >>> from influence.rating.settings import rating_settings
@@ -405,6 +407,10 @@ def allowance(settings: RatingSettings, level: str, span_length: float, units: s
     """
     if crawl and settings.method == "LRFR":
         return lrfr_impact("permit", span_length, units, escorted_crawl=True)
+    if crawl:
+        return ImpactAllowance(0.0, "escorted permit at 10 mph or less: impact neglected",
+                               "as MBE 6A.4.5.5 allows for LRFR (from memory, unconfirmed); "
+                               "taken for LFR and ASR too (common practice)")
     if settings.impact is not None:
         return ImpactAllowance(settings.impact, "as [rating] impact sets it", "model file")
     if settings.method == "LRFR":
