@@ -85,3 +85,28 @@ def test_crane_pair_on_a_simple_span_follows_the_two_load_rule() -> None:
 
 def by_vehicle(name: str) -> Path:
     return next(p for p in VEHICLE_FILES if p.stem == name)
+
+
+def test_pellow_brook_bridge_rates_on_its_textbook_dead_loads() -> None:
+    # Two equal continuous spans under a uniform load w: the moment over the middle support is
+    # -w L^2 / 8 (three-moment equation; AISC Manual beam diagrams, continuous beam of two equal
+    # spans, case number from memory); a point load standing on the support adds nothing.
+    from influence.rating.run import rate
+
+    ratings = rate(by_name("pellow-brook-bridge"), ("Type 3",), ("legal",))
+    pier = next(r for r in ratings.ratings if r.section == "P1" and r.response == "moment")
+    length = 70.0
+    assert dict(pier.rated.dead) == pytest.approx({
+        "deck": -1.05 * length**2 / 8, "parapet": -0.16 * length**2 / 8,
+        "surfacing": -0.24 * length**2 / 8}, rel=1e-9)
+    assert dict(pier.dead_terms) == {"deck": "DC", "parapet": "DC", "surfacing": "DW"}
+    assert ratings.lowest("Type 3", "legal").rating_factor > 1.0   # no posting for Type 3
+    assert ratings.postings.legal[0].posting.action == "none"
+
+
+def test_pellow_brook_permit_passes_escorted_only() -> None:
+    from influence.rating.permit_check import check_permit
+
+    carrier = by_vehicle("crane-carrier-5-axle")
+    assert check_permit(by_name("pellow-brook-bridge"), carrier, escorted=True).verdict == "PASS"
+    assert check_permit(by_name("pellow-brook-bridge"), carrier).verdict == "FAIL"

@@ -3,5 +3,6 @@ from influence.cli import (
     envelopes,  # noqa: F401
     lines,  # noqa: F401
     placement,  # noqa: F401
+    rating,  # noqa: F401
     vehicles,  # noqa: F401
 )

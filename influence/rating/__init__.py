@@ -3,8 +3,11 @@
 This package knows the rating equations, the factor tables (data files keyed by MBE edition,
 each value with its clause and confidence mark), the posting rules, the AASHTO LRFD
 distribution factors for slab-on-girder bridges and the ``[rating]`` and ``[[capacity]]``
-tables of a model file. It takes effects as plain numbers and imports nothing of the structural
-model, so any source of effects can feed it.
+tables of a model file. What it exports takes effects as plain numbers and imports nothing of
+the structural model, so any source of effects can feed it. The exact effects are wired to it by
+:func:`influence.rating.run.rate` (every section, capacity, vehicle and level of a model file)
+and :func:`influence.rating.permit_check.check_permit` (one permit vehicle), imported from their
+modules.
 
 Example (an LRFR legal-load rating and the posting it leads to):
     >>> from influence.rating import SectionEffects, legal_live_load_factor, lrfr_rating, posting

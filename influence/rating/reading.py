@@ -24,11 +24,12 @@ TABLE_KEYS: dict[str, frozenset[str]] = {
     "[rating]": frozenset({
         "method", "edition", "adtt", "condition_factor", "condition_rating", "system_factor",
         "impact", "surface", "material", "limit_states", "levels", "overlay_measured",
-        "distribution", "permit", "sign_increment"}),
+        "distribution", "permit", "sign_increment", "dead_loads"}),
     "[rating.distribution]": frozenset({
         "girder", "spacing", "span", "slab_thickness", "stiffness_parameter", "girders",
         "edge_distance", "skew", "rigid_section"}),
     "[rating.permit]": frozenset({"type", "frequency", "loading", "gross_weight"}),
+    "[rating.dead_loads]": frozenset({"DC", "DW", "P"}),
     "[[capacity]]": frozenset({
         "name", "response", "sense", "from", "to", "members", "sections", "nominal",
         "resistance_factor", "service", "allowable"}),

@@ -32,6 +32,9 @@
     frequency = "single trip"       # unlimited crossings | single trip | multiple trips
     loading = "escorted, no other vehicles"   # or "mixed with traffic"
     gross_weight = 120.0            # [kip | kN], for 1st-edition routine permits
+    [rating.dead_loads]             # load names of [[loads]] in each rating term; names DC,
+    DC = ["girder", "deck"]         #   DW, P, PS, EL, CR, SH place themselves
+    DW = ["surfacing"]
 
 Example:
     >>> settings = rating_settings({"rating": {"material": "steel", "adtt": 3000,
@@ -48,6 +51,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from influence.errors import ModelError
+from influence.rating.dead_terms import listed_dead_loads
 from influence.rating.distribution import RESPONSES, DistributionFactors, distribution_factors
 from influence.rating.girder_geometry import GirderGeometry, girder_geometry_from_metric
 from influence.rating.impact import SURFACES, UNIT_SYSTEMS
@@ -116,9 +120,12 @@ class RatingSettings:
         overlay_measured: wearing surface measured (gDW = 1.25 at strength).
         impact: IM or I override as a fraction, None to use the rules.
         surface: riding surface for the LRFR IM reduction.
-        distribution: lanes per girder, a girder geometry, or None (effects already per girder).
+        distribution: lanes per girder, a girder geometry, or None (a rating run then takes
+            the model file's [live_load] distribution x multiple presence, 1 by default).
         permit: the permit crossing, None when no permit is checked.
         sign_increment: posted loads rounded down to this [tons], None for no rounding.
+        dead_loads: (load name, "DC" | "DW" | "P") as ``[rating.dead_loads]`` places them
+            (see :mod:`influence.rating.dead_terms`).
     """
 
     method: str = "LRFR"
@@ -135,6 +142,7 @@ class RatingSettings:
     distribution: float | GirderDistribution | None = None
     permit: PermitCrossing | None = None
     sign_increment: float | None = None
+    dead_loads: tuple[tuple[str, str], ...] = ()
 
     def system_factor_for(self, response: str) -> float:
         """phi_s for a response: 1.0 for shear (MBE 6A.4.2.4, from memory, unconfirmed)."""
@@ -286,6 +294,7 @@ def rating_settings(document: dict[str, Any], units: str, source: str = "") -> R
     increment = None if increment is None else positive(increment, "rating.sign_increment",
                                                         source)
     distribution = _distribution(rating.get("distribution"), units, source)
+    dead_loads = listed_dead_loads(rating.get("dead_loads", {}), source)
     if method != "LRFR":
         for key in LRFR_ONLY:
             if key in rating:
@@ -294,7 +303,8 @@ def rating_settings(document: dict[str, Any], units: str, source: str = "") -> R
                                  fix='remove it, or set method = "LRFR"')
         return RatingSettings(method, edition, adtt, levels=_levels(rating, method, False,
                                                                     source),
-                              impact=impact, distribution=distribution, sign_increment=increment)
+                              impact=impact, distribution=distribution, sign_increment=increment,
+                              dead_loads=dead_loads)
     if "material" not in rating:
         raise ModelError("LRFR needs the bridge material", source=source, item="rating",
                          fix="add material = " + " | ".join(f'"{m}"' for m in MATERIALS))
@@ -306,4 +316,4 @@ def rating_settings(document: dict[str, Any], units: str, source: str = "") -> R
         _limit_states(rating, material, levels, source), levels,
         flag(rating.get("overlay_measured", False), "rating.overlay_measured", source), impact,
         choice(rating.get("surface", "standard"), SURFACES, "rating.surface", source),
-        distribution, permit, increment)
+        distribution, permit, increment, dead_loads)

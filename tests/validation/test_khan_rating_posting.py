@@ -81,3 +81,51 @@ def test_gamma_factors_take_the_place_of_a1_and_a2(dead_factor, live_factor, imp
     assert lrfr.rating_factor == pytest.approx(lfr.rating_factor, rel=EXACT)
     expected = (4000.0 - dead_factor * 850.0) / (live_factor * 500.0 * (1.0 + impact))
     assert lfr.rating_factor == pytest.approx(expected, rel=EXACT)
+
+
+# --- the same rules through a whole rating run (``rate``) on a simple span -------------------
+
+SPAN = 20.0  # [ft]
+
+
+def _run(rating: dict, nominal: float, tmp_path, weight: float = 17.0):
+    from influence.rating.run import rate
+    from tests.rating_files import model_file, simple_span, vehicle_file
+
+    truck = vehicle_file(tmp_path, "test truck", [weight, weight], [4.0])
+    document = simple_span(SPAN, rating=rating, capacities=[
+        {"response": "moment", "sense": "positive", "from": 0.0, "to": SPAN,
+         "nominal": nominal}])
+    return rate(model_file(document), (str(truck),), ("legal",))
+
+
+def test_rate_applies_the_member_factor_floor(tmp_path):
+    rating = {"method": "LRFR", "material": "steel", "limit_states": ["Strength I"],
+              "condition_factor": "poor", "system_factor": 0.9, "adtt": 1000}
+    ratings = _run(rating, 1000.0, tmp_path)
+    for result in (r.result for r in ratings.ratings):
+        assert 0.85 * 0.9 < 0.85
+        assert result.floor_applied
+        assert result.capacity == pytest.approx(0.85 * 1000.0, rel=EXACT)
+
+
+def test_rate_posts_a_legal_vehicle_by_the_posting_law(tmp_path):
+    rating = {"method": "LRFR", "material": "steel", "limit_states": ["Strength I"],
+              "adtt": 1000}
+    ratings = _run(rating, 250.0, tmp_path)   # a weak girder: RF between 0.3 and 1
+    posted = ratings.postings.legal[0]
+    rf, w = posted.posting.rating_factor, 17.0   # two 17-kip axles: W = 34 kip = 17 tons
+    assert rf == pytest.approx(ratings.lowest("test truck", "legal").rating_factor)
+    assert 0.3 <= rf < 1.0
+    assert posted.weight_tons == pytest.approx(w)
+    assert posted.posting.rating == pytest.approx(rf * w, rel=EXACT)          # RT = RF W
+    assert posted.posting.load == pytest.approx(w / 0.7 * (rf - 0.3), rel=EXACT)
+
+
+def test_rate_advises_closing_below_03(tmp_path):
+    rating = {"method": "LRFR", "material": "steel", "limit_states": ["Strength I"],
+              "adtt": 1000}
+    ratings = _run(rating, 130.0, tmp_path)
+    posted = ratings.postings.legal[0]
+    assert posted.posting.rating_factor < 0.3
+    assert posted.posting.action == "consider closing"
