@@ -72,7 +72,7 @@ COUNTED = METHODS["rainflow"]
 
 def table_method(n: float) -> str:
     """The words for n cycles of each crossing's full range."""
-    return f"{n:g} cycles of each crossing's full range (max - min) a passage"
+    return f"each passage counts n = {n:g} cycles of its full range (max - min)"
 
 
 @dataclass(frozen=True, eq=False)
