@@ -119,8 +119,8 @@ def _axle_train(model: LoadModel, index: int) -> Train:
     where = f"vehicle {model.name}, case {case.name}"
     if case.train is None or case.lane or case.knife_edge_moment or case.knife_edge_shear:
         raise ModelError("a case with lane or knife-edge loads", item=where,
-                         fix="use a fatigue vehicle of axles only (such as HL-93 fatigue, "
-                             "FLM3 or FLM4)")
+                         fix="use a fatigue vehicle of axles only: HL-93 fatigue, FLM3, FLM4 "
+                             "or a vehicle file")
     if case.factor == 1.0:
         return case.train
     return Train(case.train.name, tuple(

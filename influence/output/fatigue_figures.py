@@ -96,7 +96,7 @@ def draw_ranges(life: FatigueLife, ax: Axes | None = None) -> Axes:
     assert ax is not None
     if life.ranges.size:
         top = max(float(life.ranges.max()), life.limit_range)
-        ax.hist(life.ranges, bins=np.linspace(0.0, top * 1.02, HISTOGRAM_BINS + 1),
+        ax.hist(life.ranges, bins=np.linspace(0.0, top * 1.02, HISTOGRAM_BINS + 1).tolist(),
                 weights=life.cycles_per_year, color=PALETTE["negative"])
     ax.axvline(life.limit_range, color=PALETTE["section"], linewidth=1.2,
                label=f"infinite-life limit {life.limit_range:.3g} {life.stress_unit}")
