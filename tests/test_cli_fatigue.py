@@ -131,3 +131,32 @@ def test_an_unknown_detail_to_draw_is_one_line(tmp_path):
     message = _one_line_error("fatigue", MODEL, "--spectrum", SPECTRUM, "--plot",
                               str(tmp_path / "x.png"), "--detail", "G9")
     assert "G3 bottom flange" in message
+
+
+def test_report_content_gives_the_tables_and_a_figure_a_detail():
+    from influence.fatigue.run import fatigue
+    from influence.output.fatigue_figures import fatigue_figures
+    from influence.output.fatigue_tables import fatigue_tables
+    from influence.output.tables import Table
+
+    results = fatigue(MODEL, vehicle="HL-93 fatigue")
+    tables = fatigue_tables(results)
+    assert all(isinstance(t, Table) for t in tables) and len(tables) == 4
+    assert [row[0] for row in tables[0].rows] == [r.detail.name for r in results.details]
+    figures = fatigue_figures(results)
+    assert len(figures) == len(results.details)
+    assert all(ax.get_xlabel() == "lead axle position [ft]" for ax in figures)
+
+
+def test_range_steps_group_the_printed_ranges_on_the_safe_side():
+    exact = json.loads(invoke("fatigue", MODEL, "--spectrum", SPECTRUM, "--format", "json")[1])
+    code, output = invoke("fatigue", MODEL, "--spectrum", SPECTRUM, "--format", "json",
+                          "--range-step", "0.5")
+    assert code == 0, output
+    for fine, coarse in zip(exact["details"], json.loads(output)["details"], strict=True):
+        pairs = coarse["stress_ranges"]
+        assert all(size / 0.5 == round(size / 0.5) for size, _ in pairs)
+        assert sum(n for _, n in pairs) == pytest.approx(sum(n for _, n in fine["stress_ranges"]))
+        assert pairs[0][0] >= fine["stress_ranges"][0][0]
+        assert coarse["damage_per_year"] == fine["damage_per_year"]  # from the exact ranges
+    assert _one_line_error("fatigue", MODEL, "--spectrum", SPECTRUM, "--range-step", "-1")

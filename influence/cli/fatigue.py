@@ -13,6 +13,7 @@ from influence.output.fatigue_tables import (
     fatigue_table,
     method_table,
     range_table,
+    stepped_pairs,
 )
 from influence.output.tables import render_csv, render_json, render_table
 
@@ -31,6 +32,9 @@ from influence.output.tables import render_csv, render_json, render_table
               show_default=True, help="Direction of travel; both: half the passages each way.")
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)
+@click.option("--range-step", type=float,
+              help="Group the printed stress ranges into steps of this width [ksi or MPa], "
+                   "each at its upper end.")
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
               help="Draw one crossing's history, its cycles and the ranges a year (PNG, SVG, "
                    "PDF).")
@@ -38,7 +42,8 @@ from influence.output.tables import render_csv, render_json, render_table
 def fatigue_command(model_file: str, spectrum: str | None, vehicle: str | None,
                     adtt: float | None, traffic_category: str | None,
                     traffic_type: str | None, direction: str, fmt: str,
-                    plot_file: str | None, plot_detail: str | None) -> None:
+                    range_step: float | None, plot_file: str | None,
+                    plot_detail: str | None) -> None:
     """Stress ranges, cycles, damage a year and life of every [[fatigue_detail]] of MODEL_FILE
     under a spectrum of trucks or a fatigue vehicle."""
     if (spectrum is None) == (vehicle is None):
@@ -48,13 +53,14 @@ def fatigue_command(model_file: str, spectrum: str | None, vehicle: str | None,
                       direction=direction)
     if plot_detail is not None:
         results.detail(plot_detail)  # an unknown name fails before anything is printed
+    stepped_pairs([], range_step)  # so does a bad step
     if fmt == "json":
-        click.echo(render_json(fatigue_document(results)))
+        click.echo(render_json(fatigue_document(results, range_step)))
     else:
         render = render_csv if fmt == "csv" else render_table
         blocks = [render(fatigue_table(results)), render(method_table(results)),
                   render(checks_table(results))]
-        ranges = range_table(results)
+        ranges = range_table(results, range_step)
         if fmt == "csv" or len(ranges.rows) <= TEXT_RANGE_ROWS:
             blocks.append(render(ranges))
         else:

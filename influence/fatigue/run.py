@@ -252,7 +252,13 @@ def _traffic(settings: FatigueSettings, units: str, spectrum: str | Path | None,
                                  "fraction")
         adtt_sl = settings.lane_fraction * adtt
     if spectrum is not None:
-        return spectrum_traffic(read_spectrum(spectrum, units), adtt_sl)
+        trucks = read_spectrum(spectrum, units)
+        traffic = spectrum_traffic(trucks, adtt_sl)
+        if adtt is not None and trucks.frequency == "per_day":
+            return Traffic(traffic.fleet, traffic.description,
+                           ("the trucks a day given are not used: the spectrum gives its own "
+                            "per_day column",))
+        return traffic
     assert vehicle is not None
     models, converted = vehicles_for((vehicle,), units)
     traffic = vehicle_traffic(models[0], adtt_sl=adtt_sl, traffic_category=traffic_category,

@@ -1,18 +1,29 @@
 """What ``influence fatigue`` prints, and the fatigue pages' tables: a row a detail, the checks,
 the cycles per passage compared, and the stress ranges a year; with the usual header.
 
+A spectrum of many trucks gives many distinct ranges; ``range_step`` groups them for printing
+into steps of that width, each step's cycles shown at its upper end (on the safe side). The
+damage, life and checks are always those of the exact ranges.
+
 Example:
     >>> fatigue_columns("ksi")[5]
     'largest range [ksi]'
+    >>> stepped_pairs([[4.93, 10.0], [4.51, 5.0], [0.2, 100.0]], 0.5)
+    [[5.0, 15.0], [0.5, 100.0]]
 """
 
 from __future__ import annotations
 
+import math
 from typing import Any
 
+from influence.errors import InfluenceError
 from influence.fatigue.run import DetailFatigue, FatigueResults
 from influence.output.conventions import header_lines
 from influence.output.tables import Table
+
+STEP_ROUNDING = 1e-9
+"""A range within this fraction [-] of a step above a step's end belongs to that step."""
 
 TEXT_RANGE_ROWS = 120
 """Stress-range rows printed in the text output at most; CSV and JSON always give them all."""
@@ -99,11 +110,34 @@ def checks_table(results: FatigueResults) -> Table:
                   "cycles in design life [-]", "finite life"), rows)
 
 
-def range_table(results: FatigueResults) -> Table:
-    """Every detail's distinct stress ranges with their cycles a year, largest first."""
+def stepped_pairs(pairs: list[list[float]], step: float | None) -> list[list[float]]:
+    """[range, cycles] pairs grouped into steps of ``step`` [stress unit], each at its upper
+    end, largest first (the pairs as they are when ``step`` is None).
+
+    Raises:
+        InfluenceError: for a step that is not positive.
+    """
+    if step is None:
+        return pairs
+    if not (math.isfinite(step) and step > 0):
+        raise InfluenceError(f"range step {step} is not positive", item="--range-step",
+                             fix="give a positive stress step")
+    grouped: dict[int, float] = {}
+    for size, cycles in pairs:
+        top = max(math.ceil(size / step - STEP_ROUNDING), 1)
+        grouped[top] = grouped.get(top, 0.0) + cycles
+    return [[top * step, cycles] for top, cycles in sorted(grouped.items(), reverse=True)]
+
+
+def range_table(results: FatigueResults, range_step: float | None = None) -> Table:
+    """Every detail's stress ranges with their cycles a year, largest first (grouped into steps
+    of ``range_step`` [stress unit] if given)."""
     rows = [(r.detail.name, size, cycles) for r in results.details
-            for size, cycles in r.life.pairs()]
-    return Table([f"Stress ranges a year ({results.details[0].method if results.details else ''})"],
+            for size, cycles in stepped_pairs(r.life.pairs(), range_step)]
+    method = results.details[0].method if results.details else ""
+    grouping = "" if range_step is None else (
+        f"; grouped in steps of {range_step:g} {results.stress_unit}, each at its upper end")
+    return Table([f"Stress ranges a year ({method}{grouping})"],
                  ("detail", f"stress range [{results.stress_unit}]", "cycles a year [-]"), rows)
 
 
@@ -113,9 +147,9 @@ def fatigue_tables(results: FatigueResults) -> list[Table]:
             range_table(results)]
 
 
-def _life_document(life: Any) -> dict[str, Any]:
+def _life_document(life: Any, range_step: float | None) -> dict[str, Any]:
     return {
-        "stress_ranges": life.pairs(),
+        "stress_ranges": stepped_pairs(life.pairs(), range_step),
         "cycles_per_year": float(life.cycles_per_year.sum()),
         "damage_per_year": life.damage_per_year,
         "design_life_damage": life.design_life_damage,
@@ -130,7 +164,7 @@ def _life_document(life: Any) -> dict[str, Any]:
     }
 
 
-def _detail_document(r: DetailFatigue) -> dict[str, Any]:
+def _detail_document(r: DetailFatigue, range_step: float | None) -> dict[str, Any]:
     d = r.detail
     checks = r.checks
     return {
@@ -141,7 +175,7 @@ def _detail_document(r: DetailFatigue) -> dict[str, Any]:
         "category": d.category,
         "stress_per_effect": d.stress_per_effect,
         "method": r.method,
-        **_life_document(r.life),
+        **_life_document(r.life, range_step),
         "cycles_per_passage": {
             "counted": r.counted_cycles_per_passage,
             "damage_equivalent": r.equivalent_cycles_per_passage,
@@ -159,12 +193,14 @@ def _detail_document(r: DetailFatigue) -> dict[str, Any]:
             "finite_life": checks.finite_life,
         },
         "alternative": None if r.alternative is None else {
-            "method": r.alternative_method, **_life_document(r.alternative)},
+            "method": r.alternative_method, **_life_document(r.alternative, range_step)},
     }
 
 
-def fatigue_document(results: FatigueResults) -> dict[str, Any]:
-    """Everything as plain data for JSON."""
+def fatigue_document(results: FatigueResults,
+                     range_step: float | None = None) -> dict[str, Any]:
+    """Everything as plain data for JSON (stress ranges grouped into steps of ``range_step``
+    [stress unit] if given)."""
     settings = results.settings
     return {
         "title": results.title,
@@ -182,5 +218,6 @@ def fatigue_document(results: FatigueResults) -> dict[str, Any]:
         "direction": results.direction,
         "cycle_counting": results.counting,
         "notes": list(results.notes),
-        "details": [_detail_document(r) for r in results.details],
+        "stress_range_step": range_step,
+        "details": [_detail_document(r, range_step) for r in results.details],
     }
