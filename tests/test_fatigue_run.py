@@ -99,3 +99,20 @@ def test_a_model_without_fatigue_tables_is_refused(tmp_path):
     plain.write_text('[beam]\nspans = [10.0]\nEI = 1.0\nsupports = ["pinned", "roller"]\n')
     with pytest.raises(ModelError, match=r"no \[fatigue\] table"):
         fatigue(plain, vehicle="FLM3")
+
+
+def test_the_table_row_follows_the_supports_around_the_detail():
+    """AASHTO LRFD Table 6.6.1.2.5-2 (from memory): cantilever girders 5.0, trusses 1.0."""
+    from influence.fatigue.table_cycles import table_cycles
+    from influence.model.beamform import continuous_beam
+    from influence.model.path import trace
+    from influence.model.reader import read_model
+
+    overhang = continuous_beam([12.0, 60.0], 1.0, ["free", "pinned", "roller"], units="kip-ft")
+    n, basis = table_cycles(overhang, trace(overhang), 5.0) or (None, "")
+    assert n == 5.0 and "cantilever girder, overhang 12 ft" in basis
+    assert table_cycles(overhang, trace(overhang), 40.0) == (
+        1.0, "AASHTO LRFD Table 6.6.1.2.5-2: simple-span girder, span 60 ft")
+    truss = read_model(EXAMPLE.parent / "truss-rail-bridge.toml")
+    assert table_cycles(truss, trace(truss), 20.0) == (
+        1.0, "AASHTO LRFD Table 6.6.1.2.5-2: truss")
