@@ -83,7 +83,7 @@ def unit_roots(b: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         if d == 1:
             found = (-c[0] / c[1])[None, :]
         elif d == 2:
-            found = _quadratic_roots(c)
+            found = quadratic_roots(c)
         elif d == 3:
             found = _cubic_roots(c)
         else:
@@ -102,7 +102,10 @@ def unit_roots(b: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     return column[order], v[order]
 
 
-def _quadratic_roots(c: np.ndarray) -> np.ndarray:
+def quadratic_roots(c: np.ndarray) -> np.ndarray:
+    """Both roots of each column of ascending quadratic coefficients (3, m), NaN where complex
+    (a slightly negative discriminant counts as a double root); a vanishing leading
+    coefficient gives an infinite or NaN first root and the linear root second."""
     a2, a1, a0 = c[2], c[1], c[0]
     disc = a1 * a1 - 4.0 * a2 * a0
     # a slightly negative discriminant is a double root lost to rounding; keep it as a candidate

@@ -1,8 +1,11 @@
 """Fatigue of steel details under vehicle crossings: turning points, rainflow counting, S-N
 resistance (AASHTO LRFD, EN 1993-1-9), Miner damage, remaining life and traffic spectra.
 
-Depends on numpy, the ``rainflow`` library and :mod:`influence.errors` only; the histories of
-exact effect functions, the CLI and the report pages are wired elsewhere.
+The names below depend on numpy, the ``rainflow`` library and :mod:`influence.errors` only. The
+exact histories of crossings (:mod:`influence.fatigue.crossings`), the vehicles and their passages
+(:mod:`~influence.fatigue.fleet`, :mod:`~influence.fatigue.passages`) and a whole run over a model
+file's details (:func:`influence.fatigue.run.fatigue`) use the analysis and the vehicles, and are
+imported from their modules.
 """
 
 from influence.fatigue.aashto import aashto_curve, aashto_resistance

@@ -41,6 +41,9 @@ import numpy as np
 from influence.errors import InfluenceError
 from influence.fatigue.sn_curve import Resistance, SNCurve
 
+SAME_RANGE = 1e-9
+"""Ranges closer than this fraction [-] of the largest range are one range (rounding)."""
+
 ROOT_MEAN_CUBE = "root-mean-cube of the counted ranges at their own number of cycles"
 AT_REFERENCE = ("range applied {cycles:.0e} times doing the design-life damage on the same "
                 "design curve")
@@ -131,6 +134,14 @@ def assess_spectrum(ranges: np.ndarray | Sequence[float],
     size, count = _checked(ranges, cycles_per_year, design_life_years, age_years)
     used = (count > 0) & (size > 0)
     distinct, where = np.unique(size[used], return_inverse=True)
+    if distinct.size:
+        # ranges that differ by rounding alone (the same cycle counted through different
+        # sums) are one range: the largest of them stands for all
+        fresh = np.ones(distinct.size, dtype=bool)
+        fresh[1:] = np.diff(distinct) > SAME_RANGE * distinct[-1]
+        last = np.flatnonzero(np.append(fresh[1:], True))
+        where = (np.cumsum(fresh) - 1)[where]
+        distinct = distinct[last]
     totals = np.bincount(where, weights=count[used], minlength=distinct.size)
     distinct, totals = distinct[::-1].copy(), totals[::-1].copy()
     curve = resistance.curve

@@ -65,3 +65,41 @@ def turning_points(
     if direction != 0:
         found.append(extreme)
     return tuple(found)
+
+
+def reversal_mask(values: np.ndarray, tolerance: float = TURNING_POINT_TOLERANCE) -> np.ndarray:
+    """Which entries of many histories at once are turning points, one row a history.
+
+    The entries of a row are candidates in time order (a skeleton: every point where the
+    history may turn, some repeated). The first and last entries are kept; between them an
+    entry is kept where the history arrives by a step and its next step goes the other way. A
+    step of no more than ``tolerance`` times the row's largest absolute value counts as no
+    step (rounding in exact pieces), so a plateau keeps its first entry.
+
+    Args:
+        values: (histories, entries) candidate values [stress or effect unit].
+        tolerance: relative gate, at least 0.
+
+    Returns:
+        (histories, entries) True at the turning points.
+
+    Example:
+        >>> reversal_mask(np.array([[0.0, 2.0, 2.0, 2.0, 1.0, 5.0, 0.0]]))[0].tolist()
+        [True, True, False, False, True, True, True]
+        >>> reversal_mask(np.array([[3.0, 3.0]]))[0].tolist()  # no step: both ends only
+        [True, True]
+    """
+    count, entries = values.shape
+    turning = np.zeros(values.shape, dtype=bool)
+    if entries == 0:
+        return turning
+    turning[:, 0] = True
+    turning[:, -1] = True
+    step = np.diff(values, axis=1)
+    gate = tolerance * np.max(np.abs(values), axis=1)
+    moving = np.flatnonzero(np.abs(step) > gate[:, None])  # real steps, history by history
+    history, at = np.divmod(moving, max(entries - 1, 1))
+    rising = step.ravel()[moving] > 0
+    turns = (history[1:] == history[:-1]) & (rising[1:] != rising[:-1])
+    turning[history[:-1][turns], at[:-1][turns] + 1] = True
+    return turning

@@ -123,3 +123,40 @@ def test_spectrum_wholly_below_the_fatigue_limit_has_infinite_life():
 def test_unknown_category_lists_the_known_ones():
     with pytest.raises(ValueError, match=r"unknown EN 1993-1-9 normal-stress .* '70'.*160, 140"):
         en_curve("70", gamma_Mf=1.0)
+
+
+def test_two_block_spectrum_through_the_whole_pipeline_by_hand(tmp_path):
+    """Two single-axle trucks of a spectrum file cross a 20 m simple span; the detail at 8 m sees
+    one cycle of M = P a b / L each (statics of a simple beam, AISC Manual Table 3-23), stress
+    M / W. One range above the knee (slope 3), one between the knee and the cut-off (slope 5);
+    Annex A's sum written out with the curve of 7.1, category 71, gamma_Mf 1.35, gamma_Ff 1."""
+    import json
+
+    from tests.cli import invoke
+    from tests.fatigue_files import girder_file, spectrum_file
+
+    span, a, modulus = 20.0, 8.0, 2.0e7  # [m], [m], [mm^3]
+    model = girder_file(tmp_path, [span], [{
+        "name": "web gusset", "location": repr(a), "response": "moment", "category": "71",
+        "section_modulus": modulus}], {"standard": "EN", "gamma_Mf": 1.35}, units="kN-m")
+    trucks = spectrum_file(tmp_path, ["axle_1 [kN]", "per_day [-]"], [[250, 100], [150, 400]])
+    code, output = invoke("fatigue", str(model), "--spectrum", str(trucks), "--format", "json")
+    assert code == 0, output
+    detail = json.loads(output)["details"][0]
+    stress = [p * a * (span - a) / span * 1e6 / modulus for p in (250.0, 150.0)]  # [MPa]
+    per_year = [365 * 100.0, 365 * 400.0]
+    found = np.array(detail["stress_ranges"])
+    assert found.shape == (2, 2)
+    assert np.allclose(found, [[stress[0], per_year[0]], [stress[1], per_year[1]]], rtol=EXACT,
+                       atol=0.0)
+    delta_c = 71.0 / 1.35
+    delta_d = (2 / 5) ** (1 / 3) * delta_c
+    assert delta_d < stress[0] and (5 / 100) ** (1 / 5) * delta_d < stress[1] < delta_d
+    by_hand = (per_year[0] / (2e6 * (delta_c / stress[0]) ** 3)
+               + per_year[1] / (5e6 * (delta_d / stress[1]) ** 5))
+    assert detail["infinite_life"] is False
+    assert math.isclose(detail["damage_per_year"], by_hand, rel_tol=EXACT)
+    assert math.isclose(detail["life_years"], 1 / by_hand, rel_tol=EXACT)
+    # the equivalent range at 2e6 cycles doing the damage of the 100-year design life
+    assert math.isclose(detail["equivalent_range"], delta_c * (100 * by_hand) ** (1 / 3),
+                        rel_tol=EXACT)

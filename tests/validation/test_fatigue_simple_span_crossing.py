@@ -14,6 +14,7 @@ from __future__ import annotations
 import math
 
 import numpy as np
+import pytest
 
 from influence.fatigue import (
     Histories,
@@ -62,3 +63,52 @@ def test_life_of_the_crossing_against_the_miner_form_of_fatigue_ii():
     assert math.isclose(life.damage_per_year, by_hand, rel_tol=EXACT)
     assert math.isclose(life.life_years, 1 / by_hand, rel_tol=EXACT)
     assert life.pairs() == [[peak_stress, per_year]]
+
+
+# --- the same crossing through the whole pipeline: model file, vehicle file, command ----------
+
+ADTT_SL = 400.0  # trucks a day in the one lane
+
+
+def _run(tmp_path, *extra):
+    import json
+
+    from tests.cli import invoke
+    from tests.fatigue_files import girder_file, vehicle_file
+
+    model = girder_file(tmp_path, [L], [{
+        "name": "flange", "location": repr(A_SECTION), "response": "moment", "category": "E'",
+        "section_modulus": 1200.0}], {"standard": "AASHTO", "edition": 2020,
+                                      "adtt": ADTT_SL, "lanes": 1})
+    axle = vehicle_file(tmp_path, [P], [])
+    code, output = invoke("fatigue", str(model), "--vehicle", str(axle), "--format", "json",
+                          *extra)
+    assert code == 0, output
+    return json.loads(output)["details"][0]
+
+
+@pytest.mark.parametrize("direction", ["forward", "reverse", "both"])
+def test_the_command_counts_one_cycle_of_pab_over_l_a_passage(tmp_path, direction):
+    detail = _run(tmp_path, "--direction", direction)
+    stress = P * A_SECTION * B_SECTION / L / S  # [ksi]
+    ((size, cycles),) = detail["stress_ranges"]
+    assert math.isclose(size, stress, rel_tol=EXACT)
+    assert math.isclose(cycles, 365 * ADTT_SL, rel_tol=EXACT)
+    assert detail["cycles_per_passage"]["counted"] == 1.0
+    assert math.isclose(detail["cycles_per_passage"]["damage_equivalent"], 1.0, rel_tol=EXACT)
+    # AASHTO LRFD Table 6.6.1.2.5-2 (from memory): a simple span over 40 ft, one cycle
+    assert detail["cycles_per_passage"]["table"] == 1.0
+
+
+def test_the_command_gives_the_miner_form_of_fatigue_ii(tmp_path):
+    detail = _run(tmp_path)
+    stress = P * A_SECTION * B_SECTION / L / S
+    per_year = 365 * ADTT_SL * (0.80 * 1.15 * stress) ** 3 / 3.9e8
+    assert detail["infinite_life"] is False  # 1.75 x 1.15 x 4.5 ksi > 2.6 ksi
+    assert math.isclose(detail["damage_per_year"], per_year, rel_tol=EXACT)
+    assert math.isclose(detail["life_years"], 1 / per_year, rel_tol=EXACT)
+    # Fatigue II: (delta F)n = (A / N)^(1/3), N = 365 x 75 x n x (ADTT)SL with n = 1
+    resistance = (3.9e8 / (365 * 75 * 1.0 * ADTT_SL)) ** (1 / 3)
+    assert math.isclose(detail["checks"]["finite_life_resistance"], resistance, rel_tol=EXACT)
+    assert math.isclose(detail["checks"]["factored_equivalent_range"], 0.80 * 1.15 * stress,
+                        rel_tol=EXACT)
