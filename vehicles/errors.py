@@ -28,3 +28,8 @@ class VehicleError(ValueError):
         where = ": ".join(part for part in (self.source, self.item) if part)
         text = f"{where}: {self.problem}" if where else self.problem
         return f"{text} ({self.fix})" if self.fix else text
+
+
+class OutputError(VehicleError):
+    """A file or folder cannot be written where the user asked: a missing folder, a file in the
+    way, a folder that is not ours to replace, or a place the system will not let us write."""

@@ -27,6 +27,7 @@ from influence.model.structure import Model
 from influence.output.envelope_tables import deflection_table, envelope_document, envelope_table
 from influence.output.tables import render_csv, render_json, render_table
 from vehicles.loadmodel import LoadModel
+from vehicles.output.figure_files import check_figure_place
 
 
 def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis,
@@ -111,6 +112,8 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
     with the dead loads and factored combinations of the file."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
+    if plot_file:
+        check_figure_place(plot_file)
     analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
                                     adjust)
     model = analysis.model
@@ -125,8 +128,8 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
             blocks.append(render(deflection_table(result, model.title)))
         click.echo("\n\n".join(blocks))
     if plot_file:
+        from influence.output.envelope_figures import envelope_figure
         from influence.output.figures import save
-        from influence.output.report import envelope_figure
 
         save(envelope_figure(result, kinds, model.title), plot_file)
 
