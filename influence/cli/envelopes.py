@@ -148,10 +148,13 @@ def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str
     envelope and combination tables as CSV."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
+    from influence.output.report import report_source, write_report
+    from vehicles.output.places import check_folder_place
+
+    check_folder_place(out_dir, "--out")  # before any work: nothing is written on failure
     analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
                                     adjust)
-    from influence.output.report import write_report
-
-    files = write_report(analysis, result, out_dir, responses or ENVELOPE_RESPONSES)
+    files = write_report(analysis, result, out_dir, responses or ENVELOPE_RESPONSES,
+                         source=report_source(model_file))
     click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "
                f"{len(files.tables)} tables in {out_dir}")

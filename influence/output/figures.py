@@ -37,7 +37,7 @@ PALETTE = {
 }
 SAMPLES_PER_PIECE = 48
 """Points drawn per polynomial piece: drawing only; every number reported is exact."""
-STRIP_RATIO = 0.22
+STRIP_RATIO = 0.3
 """Height of the structure strip under an influence line, as a fraction of the line's axes."""
 
 
@@ -103,11 +103,13 @@ def draw_line(line: InfluenceLine, model: Model | None = None, ax: Axes | None =
                    linewidth=1.0, label="section")
     names = labels(line.units)
     unit = ordinate_unit(line.response.kind, line.units, line.response.component)
-    ax.set_ylabel(f"{line.response.kind} per unit load [{unit}]")
+    ax.set_ylabel(f"{line.response.kind} [{unit}]")
     ax.set_title(title or f"Influence line: {line.response.label}", fontsize=10)
     ax.grid(True, color=PALETTE["grid"], linewidth=0.6)
     ax.legend(loc="best", fontsize=8, frameon=False)
     ax.set_xlim(float(line.breakpoints[0]), float(line.breakpoints[-1]))
+    low, high = ax.get_ylim()
+    ax.set_ylim(low - 0.06 * (high - low), high + 0.1 * (high - low))  # labels clear of title
     xlabel = f"load position, chainage [{names.length}]"
     if model is not None and strip is not None:
         draw_strip(strip, model)
@@ -147,12 +149,12 @@ def draw_strip(strip: Axes, model: Model) -> Axes:
         if node.support.is_support:
             side = "left" if node.name == first else "right" if node.name == last else "below"
             draw_support(strip, chainage, 0.0, node.support, side, colour)
-            strip.annotate(node.name, (chainage, 0.0), xytext=(0, -21),
-                           textcoords="offset points", ha="center", va="top", fontsize=7,
+            strip.annotate(node.name, (chainage, 0.0), xytext=(0, 4),
+                           textcoords="offset points", ha="center", va="bottom", fontsize=7,
                            color=colour)
         if node.name in hinges and node.name not in (first, last):
             draw_hinge(strip, chainage, 0.0, colour)
-    strip.set_ylim(-1.0, 0.35)
+    strip.set_ylim(-1.0, 1.0)
     strip.set_yticks([])
     for side in ("left", "right", "top"):
         strip.spines[side].set_visible(False)
@@ -188,7 +190,7 @@ def structure_size(model: Model, width: float = 9.0) -> tuple[float, float]:
     ys = [n.y for n in model.nodes]
     extent = max(max(xs) - min(xs), 1e-9)
     height = width * (max(ys) - min(ys)) / extent
-    return width, float(min(max(height + 1.6, 2.4), 0.8 * width))
+    return width, float(min(max(height + 1.5, 1.9), 0.8 * width))
 
 
 @drawing

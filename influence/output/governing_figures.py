@@ -70,6 +70,14 @@ def draw_placement(ax: Axes, line: InfluenceLine, placement: Placement, colour: 
     return reach
 
 
+def make_room(ax: Axes, reach: float) -> None:
+    """Room above the arrows for their load labels (clear of the title), and below the line
+    for the lane bands."""
+    low, high = ax.get_ylim()
+    high = max(high, 1.3 * reach)
+    ax.set_ylim(low - 0.2 * (high - low), high)
+
+
 @drawing
 def draw_governing(line: InfluenceLine, placements: Sequence[Placement],
                    sweeps: Sequence[Sweep], model: Model | None = None) -> Axes:
@@ -85,10 +93,7 @@ def draw_governing(line: InfluenceLine, placements: Sequence[Placement],
     reach = 0.0
     for placement, colour in zip(placements, cycle(PLACEMENT_COLOURS)):
         reach = max(reach, draw_placement(upper, line, placement, colour))
-    low, high = upper.get_ylim()
-    # room above the arrows for their load labels (clear of the title), below for the lanes
-    high = max(high, 1.3 * reach)
-    upper.set_ylim(low - 0.12 * (high - low), high)
+    make_room(upper, reach)
     upper.legend(loc="upper left", bbox_to_anchor=(1.01, 1.0), fontsize=7, frameon=False)
     if strip is not None and model is not None:
         draw_strip(strip, model)

@@ -32,7 +32,7 @@ SAVE_FORMATS = (".png", ".svg", ".pdf")
 """File types a drawing can be saved to."""
 PNG_DPI = 150
 """Resolution of PNG drawings [dots per inch]."""
-_STYLE: dict[str, Any] = {"text.parse_math": False, "pdf.fonttype": 42, "svg.fonttype": "path",
+_STYLE: dict[str, Any] = {"text.parse_math": False, "pdf.fonttype": 3, "svg.fonttype": "path",
           "font.family": "DejaVu Sans"}
 
 P = ParamSpec("P")
@@ -41,7 +41,7 @@ R = TypeVar("R")
 
 @contextmanager
 def plain_text() -> Iterator[None]:
-    """Draw inside this context: text is plain (no mathtext) and fonts embed as TrueType."""
+    """Draw inside this context: text is plain (no mathtext), in the DejaVu face the report uses."""
     import matplotlib
 
     with matplotlib.rc_context(_STYLE):  # type: ignore[arg-type]

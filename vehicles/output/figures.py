@@ -93,7 +93,7 @@ def plot_train(train: Train, *, units: str = "kN-m", choices: Sequence[float] | 
     _dimension_gaps(ax, train, a, unit.length)
     ax.axhline(0.0, color="black", linewidth=0.8)
     ax.set_xlim(left, right)
-    ax.set_ylim(-0.45, _ARROW_HEIGHT + 0.45)
+    ax.set_ylim(-0.7, _ARROW_HEIGHT + 0.45)
     ax.set_yticks([])
     ax.set_xlabel(f"distance behind the front [{unit.length}]  (travel to the left)")
     for side in ("top", "right", "left"):
@@ -136,7 +136,8 @@ def _lane_text(case: LoadCase, units: str) -> str:
 
 
 @drawing
-def plot_model(model: LoadModel, path: str | Path | None = None) -> tuple[Any, ...]:
+def plot_model(model: LoadModel, path: str | Path | None = None,
+               size: tuple[float, float] | None = None) -> tuple[Any, ...]:
     """Draw every case of a model, one row a case, and save the figure when a path is given.
 
     The file is written under a temporary name and renamed, so it appears whole or not at all.
@@ -144,11 +145,12 @@ def plot_model(model: LoadModel, path: str | Path | None = None) -> tuple[Any, .
     Args:
         model: the load model.
         path: image file to write (.png, .svg, .pdf); None to only draw.
+        size: width and height of the figure [in]; default 9 wide, 2.6 a case.
 
     Returns:
         The axes, one per case.
     """
-    figure = new_figure(9.0, 2.6 * len(model.cases))
+    figure = new_figure(*(size or (9.0, 2.6 * len(model.cases))))
     axes = figure.subplots(len(model.cases), 1, squeeze=False)[:, 0]
     for ax, case in zip(axes, model.cases, strict=True):
         lane = _lane_text(case, model.units)

@@ -165,6 +165,9 @@ def written_folder(path: str | Path, fill: Callable[[Path], Result],
                           fix="give a place in a folder you can write") from None
     try:
         result = fill(work)
+        mask = os.umask(0)
+        os.umask(mask)
+        os.chmod(work, 0o777 & ~mask)  # a new folder's usual permissions, not mkdtemp's
         (work / MANIFEST).write_text(manifest_text(work), encoding="utf-8")
         _swap(work, target)
     except OSError as error:
