@@ -18,7 +18,6 @@ from dataclasses import dataclass, replace
 from functools import partial
 
 import numpy as np
-from scipy.optimize import minimize_scalar
 
 from influence.analysis.lines import Analysis, InfluenceLine
 from influence.analysis.responses import Response
@@ -233,6 +232,8 @@ def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: De
     its neighbours refines the section (bracket :data:`DEFLECTION_REFINEMENT` of the span; the
     deflection at every trial section is exact).
     """
+    from scipy.optimize import minimize_scalar  # only here: scipy.optimize is slow to import
+
     assert basis.live.deflection_limit
     found = []
     for span in spans(analysis.model, analysis.path):

@@ -246,9 +246,8 @@ def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axe
         elif flat and node.x >= max(xs) and node.support.description == "fixed":
             side = "right"
         draw_support(ax, node.x, node.y, node.support, side, PALETTE["structure"])
-    ax.set_aspect("equal", adjustable="datalim")
-    margin = 0.04 * extent
-    ax.set_xlim(min(xs) - margin, max(xs) + margin)  # y follows from the equal aspect
+    ax.set_aspect("equal", adjustable="datalim")  # true shape: limits follow the box
+    ax.margins(0.04)
     names = labels(model.units)
     ax.set_xlabel(f"x [{names.length}]")
     if flat:

@@ -85,13 +85,6 @@ class Story:
     places: FigurePlaces
 
 
-def is_truss(analysis: Analysis) -> bool:
-    """A structure with bars (members pinned at both ends) off the travel path: its sections
-    of interest are bars, its response of interest axial force."""
-    on_path = {leg.member for leg in analysis.path.legs}
-    return any(m.is_bar and m.name not in on_path for m in analysis.model.members)
-
-
 def _significant(entry: EnvelopeEntry, scale: float) -> bool:
     values = [abs(v) for v in (entry.live_max, entry.live_min) if v is not None]
     return bool(values) and max(values) > 1e-9 * max(scale, 1e-300)

@@ -17,7 +17,7 @@ from influence.design.envelope import Envelope, EnvelopeEntry
 from influence.model.basis import LIVE_LOAD, DeadLoad, DesignBasis
 from influence.output.conventions import LIVE_LABEL, printed_effect
 from vehicles.loadmodel import LoadModel
-from vehicles.output.tabular import Table
+from vehicles.output.tabular import ROUND_OFF, Table
 from vehicles.search.placement import Placement
 from vehicles.units import labels
 
@@ -45,6 +45,20 @@ def segments_text(segments: Sequence[tuple[float, float]]) -> str:
 
 def _where(entry: EnvelopeEntry) -> float | str:
     return "-" if entry.section.chainage is None else entry.section.chainage
+
+
+def kind_size(envelope: Envelope, kind: str) -> float:
+    """The largest absolute one-lane value of a response in the envelope [effect units]."""
+    return max((abs(p.value) for e in envelope.of(kind) for p in (e.live.max, e.live.min)
+                if p is not None), default=0.0)
+
+
+def effective(placement: Placement | None, size: float) -> Placement | None:
+    """The placement, or None when its effect is nil (round-off of ``size``): no load model
+    governs a zero, and no train is shown placed for it."""
+    if placement is None or abs(placement.value) <= ROUND_OFF * size:
+        return None
+    return placement
 
 
 def _placement_cells(placement: Placement | None) -> list[Any]:
@@ -81,6 +95,7 @@ def summary_table(envelope: Envelope) -> Table:
         if not entries:
             continue
         unit, factor = printed_effect(kind, envelope.units)
+        size = kind_size(envelope, kind)
         for sense in ("max", "min"):
             valued = [(getattr(e, f"live_{sense}"), e) for e in entries
                       if getattr(e, f"live_{sense}") is not None]
@@ -90,7 +105,8 @@ def summary_table(envelope: Envelope) -> Table:
             word = {"deflection": ("down", "up")}.get(kind, ("positive", "negative"))
             rows.append((kind, word[0] if sense == "max" else word[1], unit, factor * value,
                          factor * value / scale if scale else value, entry.section.label,
-                         _where(entry), *_placement_cells(getattr(entry.live, sense))))
+                         _where(entry),
+                         *_placement_cells(effective(getattr(entry.live, sense), size))))
     columns = ["response", "sense", "unit", f"{LIVE_LABEL} girder line",
                f"{LIVE_LABEL} one lane", "section", f"at [{names.length}]",
                *live_columns(envelope.units)]
@@ -106,15 +122,17 @@ def live_table(envelope: Envelope, kind: str) -> Table:
     names = labels(envelope.units)
     unit, factor = printed_effect(kind, envelope.units)
     scale = envelope.basis.live.scale
+    size = kind_size(envelope, kind)
     rows = []
     for entry in _in_order(envelope.of(kind)):
         for sense in ("max", "min"):
             placement = getattr(entry.live, sense)
+            shown = effective(placement, size)
             lane_value = None if placement is None else factor * placement.value
             rows.append((entry.section.label, _where(entry), sense,
                          "-" if lane_value is None else lane_value,
                          "-" if lane_value is None else lane_value * scale,
-                         *_placement_cells(placement)))
+                         *_placement_cells(shown)))
     columns = ("section", f"at [{names.length}]", "sense", f"{LIVE_LABEL} one lane [{unit}]",
                f"{LIVE_LABEL} x {scale:g} [{unit}]", *live_columns(envelope.units))
     return Table([], columns, rows, formats=("text", "position", "text", "effect", "effect",
@@ -151,17 +169,19 @@ def bar_table(envelope: Envelope, entries: Sequence[EnvelopeEntry]) -> Table:
     names = labels(envelope.units)
     unit, _ = printed_effect("axial", envelope.units)
     loads = envelope.basis.load_names
-    columns = ["bar", f"{LIVE_LABEL} tension [{unit}]", "tension: load model, case",
-               f"tension: lead [{names.length}]", f"{LIVE_LABEL} compression [{unit}]",
+    scale = envelope.basis.live.scale
+    columns = ["bar", f"{LIVE_LABEL} x {scale:g} tension [{unit}]", "tension: load model, case",
+               f"tension: lead [{names.length}]", f"{LIVE_LABEL} x {scale:g} compression [{unit}]",
                "compression: load model, case", f"compression: lead [{names.length}]",
                *(f"{load} [{unit}]" for load in loads)]
     for combination in envelope.basis.combinations:
         columns += [f"{combination.name} max [{unit}]", f"{combination.name} min [{unit}]"]
+    size = kind_size(envelope, "axial")
     rows = []
     for entry in entries:
         row: list[Any] = [entry.section.label]
         for sense in ("max", "min"):
-            placement = getattr(entry.live, sense)
+            placement = effective(getattr(entry.live, sense), size)
             value = getattr(entry, f"live_{sense}")
             row += ["-" if value is None else value,
                     "-" if placement is None else f"{placement.model}: {placement.case}, "
