@@ -71,11 +71,23 @@ def draw_placement(ax: Axes, line: InfluenceLine, placement: Placement, colour: 
 
 
 def make_room(ax: Axes, reach: float) -> None:
-    """Room above the arrows for their load labels (clear of the title), and below the line
-    for the lane bands."""
+    """Room above the arrows for their load labels (inside the axes, clear of the title), and
+    below the line for the lane bands."""
     low, high = ax.get_ylim()
-    high = max(high, 1.3 * reach)
-    ax.set_ylim(low - 0.2 * (high - low), high)
+    high = max(high, 1.15 * reach)
+    low = low - 0.2 * (high - low)
+    ax.set_ylim(low, high)
+    figure = ax.get_figure()
+    for _ in range(3):  # the labels' height is known in points only once laid out
+        figure.draw_without_rendering()
+        renderer = figure._get_renderer()
+        top = ax.get_window_extent(renderer).y1
+        height = max(ax.get_window_extent(renderer).height, 1.0)
+        over = max((t.get_window_extent(renderer).y1 - top for t in ax.texts), default=0.0)
+        if over <= 0:
+            return
+        high += 1.15 * over / height * (high - low)
+        ax.set_ylim(low, high)
 
 
 @drawing

@@ -36,7 +36,7 @@ ROUND_OFF = 1e-9
 """Values below this fraction [-] of the largest value of their kind in a table print as 0."""
 SIGNIFICANT = 4
 """Significant figures [-] given to the largest value of a numeric column."""
-MAX_DECIMALS = 6
+MAX_DECIMALS = 10
 """Most decimals [-] a printed number gets."""
 
 FORMATS = ("text", "number", "effect", "position", "ratio", "factor", "count")
