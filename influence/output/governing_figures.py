@@ -77,7 +77,7 @@ def make_room(ax: Axes, reach: float) -> None:
     high = max(high, 1.15 * reach)
     low = low - 0.2 * (high - low)
     ax.set_ylim(low, high)
-    figure = ax.get_figure()
+    figure: Any = ax.get_figure()
     for _ in range(3):  # the labels' height is known in points only once laid out
         figure.draw_without_rendering()
         renderer = figure._get_renderer()
