@@ -82,7 +82,8 @@ def printed_effect(kind: str, units: str, component: str = "") -> tuple[str, flo
 
 LIVE_LABEL = "LL+IM"
 """How tables and plots name the live load with its dynamic load allowance, as the standards do
-(AASHTO LRFD 3.4.1: LL vehicular live load, IM dynamic load allowance)."""
+(AASHTO LRFD Bridge Design Specifications, 3.3.2 load designations: LL vehicular live load, IM
+vehicular dynamic load allowance; from memory, unconfirmed)."""
 
 
 def header_lines(title: str, units: str) -> list[str]:

@@ -158,32 +158,49 @@ def deflection_verdict(envelope: Envelope) -> str:
 
 
 class _Writer:
-    """Collects flowables and figures."""
+    """Collects flowables and figures; a heading and its introduction are held until what they
+    introduce, so that they never stand alone at the foot of a page."""
 
     def __init__(self) -> None:
         self.style = styles()
         self.flowables: list[Any] = []
         self.figures: list[ReportFigure] = []
         self.places = FigurePlaces()
+        self.pending: list[Any] = []
 
     def heading(self, text: str, level: int = 0) -> None:
-        if level == 0:
-            self.flowables.append(CondPageBreak(FRAME_HEIGHT / 3))
-        self.flowables.append(HeadingParagraph(text, level,
-                                               self.style["h1" if level == 0 else "h2"]))
+        self._flush()
+        self.flowables.append(CondPageBreak(FRAME_HEIGHT / 3 if level == 0 else 110))
+        self.pending.append(HeadingParagraph(text, level,
+                                             self.style["h1" if level == 0 else "h2"]))
 
     def text(self, text: str, style: str = "body") -> None:
-        self.flowables.append(Paragraph(escaped(text), self.style[style]))
+        paragraph = Paragraph(escaped(text), self.style[style])
+        if style == "intro":
+            self.pending.append(paragraph)
+        else:
+            self._flush()
+            self.flowables.append(paragraph)
+
+    def add(self, flowable: Any) -> None:
+        self._flush()
+        self.flowables.append(flowable)
+
+    def _flush(self) -> None:
+        self.flowables += self.pending
+        self.pending = []
 
     def table(self, table: Table, fixed: dict[int, float] | None = None) -> None:
         widths = column_widths(table, fixed=fixed)
+        self._flush()
         self.flowables.append(table_flowable(table, widths, self.style))
         self.flowables.append(gap(6))
 
     def figure(self, key: str, figure: Any, caption: str = "", png: bool = True) -> None:
         made = rendered(key, figure, png)
         self.figures.append(made)
-        items = [place(made, self.places)]
+        items = [*self.pending, place(made, self.places)]
+        self.pending = []
         if caption:
             items.append(Paragraph(escaped(caption), self.style["small"]))
         items.append(gap(6))
@@ -192,17 +209,16 @@ class _Writer:
 
 def _title_block(w: _Writer, envelope: Envelope, source: ReportSource, title: str) -> None:
     project = source.project
-    w.flowables.append(Paragraph("Calculation package: influence lines, envelopes and "
-                                 "combinations", w.style["title"]))
-    w.flowables.append(Paragraph(escaped(title), w.style["subtitle"]))
+    w.add(Paragraph("Calculation package: influence lines, envelopes and combinations",
+                    w.style["title"]))
+    w.add(Paragraph(escaped(title), w.style["subtitle"]))
     fields = [("job number", project.job_number), ("designed by", project.designed_by),
               ("checked by", project.checked_by), ("revision", project.revision),
               ("client", project.client), ("location", project.location),
               ("input file", source.path), ("input SHA-256", source.digest),
               ("prepared with", source.tool), ("date", source.date)]
-    flowable = field_table(fields, w.style)
-    w.flowables += [flowable, Paragraph("<b>Caution.</b> " + escaped(CAUTION),
-                                        w.style["caution"])]
+    w.add(field_table(fields, w.style))
+    w.add(Paragraph("<b>Caution.</b> " + escaped(CAUTION), w.style["caution"]))
     w.heading("Summary of governing results")
     w.text(f"{LIVE_LABEL}: vehicular live load with its dynamic load allowance, for the girder "
            f"line (one lane x {envelope.basis.live.scale:g}: distribution "
@@ -277,10 +293,9 @@ def _input_echo(w: _Writer, analysis: Analysis, envelope: Envelope,
     w.heading("2.5 Load models", 1)
     w.table(load_model_table(envelope.models, deflection_models), fixed={3: 190, 4: 360})
     for number, load_model in enumerate((*envelope.models, *deflection_models), start=1):
-        w.flowables.append(CondPageBreak(FRAME_HEIGHT / 2))
-        w.flowables.append(XPreformatted(escaped(model_text(details(load_model))),
-                                         _mono(w)))
-        w.flowables.append(gap(4))
+        w.add(CondPageBreak(FRAME_HEIGHT / 2))
+        w.add(XPreformatted(escaped(model_text(details(load_model))), _mono(w)))
+        w.add(gap(4))
         if any(c.train is not None for c in load_model.cases):
             from vehicles.output.figures import plot_model
 
@@ -382,10 +397,10 @@ def report_story(analysis: Analysis, envelope: Envelope, kinds: Sequence[str],
     w = _Writer()
     title = analysis.model.title
     _title_block(w, envelope, source, title)
-    w.flowables.append(PageBreak())
-    w.flowables.append(Paragraph("Contents", w.style["h1"]))
-    w.flowables.append(contents(w.style))
-    w.flowables.append(PageBreak())
+    w.add(PageBreak())
+    w.add(Paragraph("Contents", w.style["h1"]))
+    w.add(contents(w.style))
+    w.add(PageBreak())
     _conventions(w, envelope)
     _input_echo(w, analysis, envelope, deflection_models, kinds)
     _influence_lines(w, analysis, envelope)
@@ -395,4 +410,5 @@ def report_story(analysis: Analysis, envelope: Envelope, kinds: Sequence[str],
         w.heading("7 Live-load deflection check")
         w.text(deflection_verdict(envelope))
         w.table(deflection_check_table(envelope))
+    w.add(gap(0))  # the last heading held, if any
     return Story(w.flowables, w.figures, w.places)
