@@ -128,3 +128,26 @@ def test_figures_are_vector_and_written_as_png(package: Path) -> None:
     for line in listed:
         digest, name = line.split("  ")
         assert hashlib.sha256((package / name).read_bytes()).hexdigest() == digest
+
+
+def test_each_figure_is_drawn_once(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    from matplotlib.figure import Figure
+
+    from influence.output.report import write_report
+
+    calls: list[str] = []
+    original = Figure.savefig
+
+    def counted(self, *args, **kwargs):  # type: ignore[no-untyped-def]
+        calls.append(kwargs.get("format", ""))
+        return original(self, *args, **kwargs)
+
+    monkeypatch.setattr(Figure, "savefig", counted)
+    read = read_model_file(OVERPASS)
+    analysis = analyse_model(read.model)
+    models, _ = vehicles_for(("LM2",), "kN-m")
+    sections = envelope_sections(read.model, analysis.path, per_span=2)
+    result = envelope(analysis, models, read.basis, kinds=("moment",), sections=sections)
+    files = write_report(analysis, result, tmp_path / "p", ("moment",), deflection_models=())
+    assert calls and set(calls) == {"pdf"}  # drawn once, to vector PDF
+    assert len(calls) == len(files.figures)  # every PNG rasterised from that same drawing

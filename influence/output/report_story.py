@@ -11,7 +11,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
 
-from reportlab.platypus import CondPageBreak, KeepTogether, PageBreak, Paragraph, XPreformatted
+from reportlab.platypus import CondPageBreak, KeepTogether, PageBreak, Paragraph, Preformatted
 
 from influence.analysis.lines import Analysis
 from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
@@ -192,8 +192,14 @@ class _Writer:
 
     def table(self, table: Table, fixed: dict[int, float] | None = None) -> None:
         widths = column_widths(table, fixed=fixed)
+        flowable = table_flowable(table, widths, self.style)
+        if self.pending:  # the heading goes with the table's first rows, or on a new page
+            flowable.wrap(FRAME_WIDTH, FRAME_HEIGHT)
+            first = sum(flowable._rowHeights[:3])
+            held = sum(p.wrap(FRAME_WIDTH, FRAME_HEIGHT)[1] + 12 for p in self.pending)
+            self.flowables.append(CondPageBreak(first + held))
         self._flush()
-        self.flowables.append(table_flowable(table, widths, self.style))
+        self.flowables.append(flowable)
         self.flowables.append(gap(6))
 
     def figure(self, key: str, figure: Any, caption: str = "", png: bool = True) -> None:
@@ -294,7 +300,8 @@ def _input_echo(w: _Writer, analysis: Analysis, envelope: Envelope,
     w.table(load_model_table(envelope.models, deflection_models), fixed={3: 190, 4: 360})
     for number, load_model in enumerate((*envelope.models, *deflection_models), start=1):
         w.add(CondPageBreak(FRAME_HEIGHT / 2))
-        w.add(XPreformatted(escaped(model_text(details(load_model))), _mono(w)))
+        w.add(Preformatted(model_text(details(load_model)), _mono(w), maxLineLength=185,
+                           newLineChars="      "))
         w.add(gap(4))
         if any(c.train is not None for c in load_model.cases):
             from vehicles.output.figures import plot_model
