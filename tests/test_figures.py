@@ -25,6 +25,7 @@ from influence.output.figures import draw_line, draw_structure
 from influence.output.governing_figures import draw_governing, sweep_styles
 from influence.output.symbols import HINGE_SIZE, SYMBOL_SIZE
 from tests.cli import invoke
+from vehicles.output.tabular import significant
 from vehicles.search.sweep import sweep
 
 EXAMPLES = Path(__file__).resolve().parent.parent / "examples"
@@ -141,7 +142,7 @@ def test_every_sweep_gets_its_own_style_and_axles_and_lanes_are_labelled() -> No
     assert len(curves) == 6
     assert len({(ln.get_color(), ln.get_linestyle()) for ln in curves}) == 6
     assert len(set(sweep_styles(24))) == 24
-    loads = {f"{p:.4g}" for pl in placements for p in pl.axle_loads if p}
+    loads = {significant(p) for pl in placements for p in pl.axle_loads if p}
     assert loads <= {t.get_text() for t in upper.texts}
     assert any(label.startswith("lane") for label in upper.get_legend_handles_labels()[1])
     # the arrows and their labels stay inside the axes, under the title
@@ -163,3 +164,15 @@ def test_user_text_is_never_mathtext(tmp_path: Path) -> None:
     code, output = invoke("report", str(path), "--out", str(tmp_path / "r"), "--vehicle",
                           "LM2", "--per-span", "2", "--quiet")
     assert code == 0, output
+
+
+def test_figure_labels_carry_no_round_off_and_no_scientific_notation() -> None:
+    import re
+
+    model = continuous_beam([10.0], 1.0e6, ["pinned", "roller"])
+    analysis = analyse_model(model)
+    for response in (Response("moment", "4"), Response("deflection", "5")):
+        ax = draw_line(analysis.line(response), model)
+        texts = [t.get_text() for t in ax.texts]
+        assert texts and not any(re.search(r"\de[+-]?\d", t) for t in texts)
+        assert len(texts) == 1 if response.kind == "moment" else True  # the -1e-15 end: no label

@@ -20,6 +20,7 @@ from influence.model.structure import Model
 from influence.output.conventions import ordinate_unit
 from influence.output.symbols import Label, draw_hinge, draw_support, place_labels
 from vehicles.output.figure_files import drawing, new_figure, save_figure
+from vehicles.output.tabular import ROUND_OFF, significant
 from vehicles.units import labels
 
 if TYPE_CHECKING:
@@ -93,10 +94,11 @@ def draw_line(line: InfluenceLine, model: Model | None = None, ax: Axes | None =
     ax.plot(x, y, color=PALETTE["line"], linewidth=1.8)
     ax.axhline(0.0, color=PALETTE["structure"], linewidth=0.9)
     extremes = line.extremes()
+    size = max(abs(extremes.largest.value), abs(extremes.smallest.value))
     for extreme, below in ((extremes.largest, False), (extremes.smallest, True)):
-        if extreme.value != 0:
+        if abs(extreme.value) > ROUND_OFF * size:  # round-off is no extreme worth a label
             ax.plot([extreme.at], [extreme.value], "o", color=PALETTE["line"], markersize=4)
-            ax.annotate(f"{extreme.value:.4g}", (extreme.at, extreme.value), fontsize=8,
+            ax.annotate(significant(extreme.value), (extreme.at, extreme.value), fontsize=8,
                         xytext=(4, -10 if below else 4), textcoords="offset points")
     if line.section_chainage is not None:
         ax.axvline(line.section_chainage, color=PALETTE["section"], linestyle="--",

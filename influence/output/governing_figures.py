@@ -19,6 +19,7 @@ from influence.model.structure import Model
 from influence.output.conventions import effect_unit
 from influence.output.figures import PALETTE, draw_line, draw_strip
 from vehicles.output.figure_files import drawing, new_figure
+from vehicles.output.tabular import significant
 from vehicles.search.placement import Placement
 from vehicles.search.sweep import Sweep
 from vehicles.units import labels
@@ -59,10 +60,10 @@ def draw_placement(ax: Axes, line: InfluenceLine, placement: Placement, colour: 
         reach = max(reach, length)
         ax.annotate("", (x, 0.0), (x, length),
                     arrowprops={"arrowstyle": "-|>", "color": colour, "linewidth": 1.2})
-        ax.annotate(f"{load:.4g}", (x, length), xytext=(0, 2), textcoords="offset points",
+        ax.annotate(significant(load), (x, length), xytext=(0, 2), textcoords="offset points",
                     ha="center", va="bottom", fontsize=6, color=colour, rotation=90)
     if placement.lane_segments:
-        label = (f"lane {placement.lane_intensity:.4g} {names.force_per_length} "
+        label = (f"lane {significant(placement.lane_intensity)} {names.force_per_length} "
                  f"({placement.case}, {placement.sense})")
         for index, (a, b) in enumerate(placement.lane_segments):
             ax.axvspan(a, b, ymin=0.0, ymax=0.05, color=colour, alpha=0.45,
@@ -125,7 +126,7 @@ def _draw_sweeps(lower: Any, line: InfluenceLine, placements: Sequence[Placement
                    linewidth=1.3, label=f"{s.case}, {s.direction} (lane for {s.sense})")
     for placement, colour in zip(placements, cycle(PLACEMENT_COLOURS)):
         lower.plot([placement.lead_position], [placement.value], "o", color=colour,
-                   label=f"{placement.sense} {placement.value:.4g}: {placement.case}, "
+                   label=f"{placement.sense} {significant(placement.value)}: {placement.case}, "
                          f"{placement.direction}")
     names = labels(line.units)
     lower.axhline(0.0, color=PALETTE["structure"], linewidth=0.7)

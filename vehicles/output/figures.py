@@ -22,6 +22,7 @@ from typing import Any
 
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.output.figure_files import drawing, new_figure, save_figure
+from vehicles.output.tabular import significant
 from vehicles.train import Patch, Train
 from vehicles.units import labels
 
@@ -37,7 +38,7 @@ def _new_axes() -> Any:
 
 
 def _num(value: float) -> str:
-    return f"{value:.4g}"
+    return significant(value)
 
 
 def _gap_label(train: Train, index: int, used: float, unit: str) -> str:

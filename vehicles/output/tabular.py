@@ -116,6 +116,21 @@ def fixed(value: float, decimals: int) -> str:
     return text
 
 
+def significant(value: float, figures: int = SIGNIFICANT) -> str:
+    """A number to about ``figures`` significant figures in fixed point (never scientific),
+    for labels in drawings and text.
+
+    Example:
+        >>> significant(4.8321), significant(2.345e-5), significant(189316.3), significant(-0.0)
+        ('4.832', '0.00002345', '189316', '0')
+    """
+    if value == 0 or not math.isfinite(value):
+        return "0" if value == 0 else str(value)
+    digits = math.floor(math.log10(abs(value))) + 1
+    text = fixed(value, min(max(figures - digits, 0), MAX_DECIMALS))
+    return text.rstrip("0").rstrip(".") if "." in text else text
+
+
 def cell_texts(table: Table) -> list[list[str]]:
     """Every cell of the table as printed text, row by row (see the module's rules)."""
     count = len(table.columns)
