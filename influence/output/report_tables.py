@@ -16,31 +16,13 @@ from typing import Any
 from influence.design.envelope import Envelope, EnvelopeEntry
 from influence.model.basis import LIVE_LOAD, DeadLoad, DesignBasis
 from influence.output.conventions import LIVE_LABEL, printed_effect
+from influence.output.governing_tables import positions_text, segments_text
 from vehicles.loadmodel import LoadModel
 from vehicles.output.tabular import ROUND_OFF, Table
 from vehicles.search.placement import Placement
 from vehicles.units import labels
 
 KINDS_IN_ORDER = ("moment", "shear", "axial", "reaction", "deflection")
-
-
-def positions_text(values: Sequence[float], decimals: int = 2) -> str:
-    """Chainages [length] as a short list, front to rear: '12.18 16.45 20.72'.
-
-    Example:
-        >>> positions_text([12.183, 16.45, -0.0001])
-        '12.18 16.45 0.00'
-    """
-    from vehicles.output.tabular import fixed
-
-    return " ".join(fixed(v, decimals) for v in values) or "-"
-
-
-def segments_text(segments: Sequence[tuple[float, float]]) -> str:
-    """Loaded stretches [length]: '0.00-24.00, 56.00-80.00'."""
-    from vehicles.output.tabular import fixed
-
-    return ", ".join(f"{fixed(a, 2)}-{fixed(b, 2)}" for a, b in segments) or "-"
 
 
 def _where(entry: EnvelopeEntry) -> float | str:

@@ -147,7 +147,8 @@ def cell_texts(table: Table) -> list[list[str]]:
             continue
         numbers = [0.0 if abs(float(v)) < ROUND_OFF * scale_of[form] else float(v)
                    for v in values if _is_number(v)]
-        decimals = _decimals(numbers, form)
+        whole = all(isinstance(v, int | np.integer) for v in values if _is_number(v))
+        decimals = 0 if whole and form == "number" else _decimals(numbers, form)
         texts = []
         for v in values:
             if not _is_number(v):
