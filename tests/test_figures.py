@@ -176,3 +176,14 @@ def test_figure_labels_carry_no_round_off_and_no_scientific_notation() -> None:
         texts = [t.get_text() for t in ax.texts]
         assert texts and not any(re.search(r"\de[+-]?\d", t) for t in texts)
         assert len(texts) == 1 if response.kind == "moment" else True  # the -1e-15 end: no label
+
+
+def test_reactions_off_the_path_are_drawn_by_support() -> None:
+    read = read_model_file(EXAMPLES / "portal-footbridge.toml")
+    analysis = analyse_model(read.model)
+    models, _ = vehicles_for(("LM2",), "kN-m")
+    sections = envelope_sections(read.model, analysis.path, per_span=2)
+    result = envelope(analysis, models, read.basis, kinds=("reaction",), sections=sections)
+    ax = draw_envelope(result, "reaction")
+    labels = [t.get_text() for t in ax.get_xticklabels()]
+    assert "W-base" in labels and "E-base" in labels

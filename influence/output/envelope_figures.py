@@ -14,6 +14,7 @@ from influence.design.envelope import Envelope, EnvelopeEntry
 from influence.output.conventions import LIVE_LABEL, printed_effect
 from influence.output.figures import PALETTE, new_axes
 from vehicles.output.figure_files import drawing, new_figure
+from vehicles.output.tabular import ROUND_OFF
 from vehicles.units import labels
 
 if TYPE_CHECKING:
@@ -31,9 +32,18 @@ def sorted_entries(envelope: Envelope, kind: str) -> list[EnvelopeEntry]:
     return sorted(entries, key=lambda e: (e.section.chainage, e.section.side != "left"))
 
 
-def _governing_key(entry: EnvelopeEntry, sense: str) -> str | None:
+def _governing_key(entry: EnvelopeEntry, sense: str, size: float) -> str | None:
+    """'model: case' of the placement governing a sense, None when none does or the effect is
+    round-off of ``size`` (no model governs a zero)."""
     placement = getattr(entry.live, sense)
-    return None if placement is None else f"{placement.model}: {placement.case}"
+    if placement is None or abs(placement.value) <= ROUND_OFF * size:
+        return None
+    return f"{placement.model}: {placement.case}"
+
+
+def _size(entries: list[EnvelopeEntry]) -> float:
+    return max((abs(p.value) for e in entries for p in (e.live.max, e.live.min)
+                if p is not None), default=0.0)
 
 
 @drawing
@@ -45,6 +55,8 @@ def draw_envelope(envelope: Envelope, kind: str, ax: Axes | None = None,
     if kind == "axial":
         return _draw_bar_forces(envelope, ax, title)
     entries = sorted_entries(envelope, kind)
+    if kind == "reaction":  # by support, on the path or not
+        entries += [e for e in envelope.of(kind) if e.section.chainage is None]
     unit, factor = printed_effect(kind, envelope.units)
     names = labels(envelope.units)
     ax.set_title(title or f"Envelope of {kind}", fontsize=10)
@@ -55,7 +67,8 @@ def draw_envelope(envelope: Envelope, kind: str, ax: Axes | None = None,
         ax.text(0.5, 0.5, f"no {kind} sections on the path", transform=ax.transAxes,
                 ha="center", va="center")
         return ax
-    x = np.array([e.section.chainage for e in entries], dtype=float)
+    x = np.array([np.nan if e.section.chainage is None else e.section.chainage
+                  for e in entries], dtype=float)
     high = factor * np.array([np.nan if e.live_max is None else e.live_max for e in entries])
     low = factor * np.array([np.nan if e.live_min is None else e.live_min for e in entries])
     live = f"{LIVE_LABEL} (x {envelope.basis.live.scale:g} per girder line)"
@@ -64,14 +77,15 @@ def draw_envelope(envelope: Envelope, kind: str, ax: Axes | None = None,
     ax.fill_between(x, low, high, color=PALETTE["positive"], alpha=0.25, linewidth=0)
     ax.plot(x, high, color=PALETTE["line"], linewidth=1.6, label=f"{live}, largest")
     ax.plot(x, low, color=PALETTE["negative"], linewidth=1.6, label=f"{live}, smallest")
+    size = _size(entries)
     keys = sorted({k for e in entries for s in ("max", "min")
-                   if (k := _governing_key(e, s)) is not None})
+                   if (k := _governing_key(e, s, size)) is not None})
     styles = zip(keys, cycle(MARKERS), cycle(GOVERNING_COLOURS))
     for key, marker, colour in styles:
         chosen_x, chosen_y = [], []
         for values, sense in ((high, "max"), (low, "min")):
             for i, entry in enumerate(entries):
-                if _governing_key(entry, sense) == key:
+                if _governing_key(entry, sense, size) == key:
                     chosen_x.append(x[i])
                     chosen_y.append(values[i])
         ax.plot(chosen_x, chosen_y, marker, markersize=4, linestyle="none", color=colour,
@@ -101,6 +115,7 @@ def _draw_reactions(envelope: Envelope, entries: list[EnvelopeEntry], ax: Axes,
                        list(values[:, 1])))
     positions = np.arange(len(entries), dtype=float)
     width = 0.8 / len(groups)
+    size = _size(entries)
     colours = (PALETTE["line"], PALETTE["bar"], PALETTE["positive"], PALETTE["path"])
     for index, ((label, high, low), colour) in enumerate(zip(groups, cycle(colours))):
         at = positions - 0.4 + width * (index + 0.5)
@@ -108,19 +123,19 @@ def _draw_reactions(envelope: Envelope, entries: list[EnvelopeEntry], ax: Axes,
         ax.bar(at, factor * np.asarray(low), width=0.9 * width, color=colour, alpha=0.55)
         if index == 0:
             keys = sorted({k for e in entries for sense in ("max", "min")
-                           if (k := _governing_key(e, sense)) is not None})
+                           if (k := _governing_key(e, sense, size)) is not None})
             for key, marker, mark_colour in zip(keys, cycle(MARKERS), cycle(GOVERNING_COLOURS)):
                 xs: list[float] = []
                 ys: list[float] = []
                 for sides, sense in ((high, "max"), (low, "min")):
                     for i, entry in enumerate(entries):
-                        if _governing_key(entry, sense) == key:
+                        if _governing_key(entry, sense, size) == key:
                             xs.append(at[i])
                             ys.append(factor * sides[i])
                 ax.plot(xs, ys, marker, color=mark_colour, markersize=4, linestyle="none",
                         label=f"governs: {key}", zorder=5)
     ax.set_axisbelow(True)
-    ax.set_xticks(positions, [e.section.label for e in entries])
+    ax.set_xticks(positions, [e.section.label.replace(" ", "\n") for e in entries])
     ax.set_xlabel("support (lighter bars: smallest values)")
     ax.legend(fontsize=7, frameon=False, loc="center left", bbox_to_anchor=(1.01, 0.5))
     return ax
