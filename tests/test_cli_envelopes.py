@@ -32,7 +32,7 @@ def test_report_writes_pdf_figures_and_csv_tables(tmp_path: Path) -> None:
     assert "02-structure.png" in figures and "05-envelope-moment.png" in figures
     with open(out / "tables" / "envelope-moment.csv") as handle:
         rows = [row for row in csv.reader(line for line in handle if not line.startswith("#"))]
-    assert rows[0][:3] == ["section", "chainage [m]", "live max [kN-m]"]
+    assert rows[0][:3] == ["section", "chainage [m]", "LL+IM max [kN-m]"]
     assert "Strength I max [kN-m]" in rows[0]
     assert not list(out.glob(".report-*"))  # the temporary folder is gone
 

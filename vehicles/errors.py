@@ -34,3 +34,8 @@ class ToolError(ValueError):
 
 class VehicleError(ToolError):
     """Base of every error about a load train, a vehicle file or a load model."""
+
+
+class OutputError(VehicleError):
+    """A file or folder cannot be written where the user asked: a missing folder, a file in the
+    way, a folder that is not ours to replace, or a place the system will not let us write."""

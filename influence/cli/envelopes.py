@@ -11,12 +11,10 @@ import click
 from influence.analysis.lines import Analysis, analyse_model
 from influence.cli import main
 from influence.cli.vehicles import parse_adjustments
+from influence.design.bars import count_entries, default_responses, structure_envelope
 from influence.design.envelope import (
     ENVELOPE_CHOICES,
-    ENVELOPE_RESPONSES,
     Envelope,
-    envelope,
-    section_responses,
 )
 from influence.design.loading import vehicles_for
 from influence.design.sections import envelope_sections
@@ -27,6 +25,7 @@ from influence.model.structure import Model
 from influence.output.envelope_tables import deflection_table, envelope_document, envelope_table
 from influence.output.tables import render_csv, render_json, render_table
 from vehicles.loadmodel import LoadModel
+from vehicles.output.figure_files import check_figure_place
 
 
 def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis,
@@ -68,12 +67,12 @@ def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[st
                                    extra=settings.extra)
     sections = envelope_sections(model, analysis.path, per_span=settings.per_span,
                                  step=settings.step, extra=settings.extra)
-    kinds = responses or ENVELOPE_RESPONSES
-    total = len(section_responses(sections, kinds, model))
+    kinds = responses or default_responses(model)
+    total = count_entries(model, sections, kinds)
     with progress_bar(total, "envelopes", quiet) as bar:
-        result = envelope(analysis, models, basis, kinds=kinds, sections=sections,
-                          progress=bar.update, notes=notes,
-                          deflection_models=deflection_models)
+        result = structure_envelope(analysis, models, basis, kinds=kinds, sections=sections,
+                                    progress=bar.update, notes=notes,
+                                    deflection_models=deflection_models)
     return analysis, result
 
 
@@ -111,10 +110,12 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
     with the dead loads and factored combinations of the file."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
+    if plot_file:
+        check_figure_place(plot_file)
     analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
                                     adjust)
     model = analysis.model
-    kinds = responses or ENVELOPE_RESPONSES
+    kinds = responses or default_responses(model)
     if fmt == "json":
         click.echo(render_json(envelope_document(result, model.title)))
     else:
@@ -125,15 +126,15 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
             blocks.append(render(deflection_table(result, model.title)))
         click.echo("\n\n".join(blocks))
     if plot_file:
+        from influence.output.envelope_figures import envelope_figure
         from influence.output.figures import save
-        from influence.output.report import envelope_figure
 
         save(envelope_figure(result, kinds, model.title), plot_file)
 
 
 @main.command("report")
 @click.argument("model_file", type=click.Path(dir_okay=False))
-@click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
+@click.option("--out", "out_dir", required=True, type=click.Path(),
               help="Folder for report.pdf, figures/ and tables/.")
 @envelope_options
 @click.option("--quiet", is_flag=True, help="No progress bar.")
@@ -145,10 +146,13 @@ def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str
     envelope and combination tables as CSV."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
+    from influence.output.report import report_source, write_report
+    from vehicles.output.places import check_folder_place
+
+    check_folder_place(out_dir, "--out")  # before any work: nothing is written on failure
     analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
                                     adjust)
-    from influence.output.report import write_report
-
-    files = write_report(analysis, result, out_dir, responses or ENVELOPE_RESPONSES)
+    files = write_report(analysis, result, out_dir, responses or default_responses(analysis.model),
+                         source=report_source(model_file))
     click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "
                f"{len(files.tables)} tables in {out_dir}")

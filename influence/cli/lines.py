@@ -13,6 +13,7 @@ from influence.model.reader import read_model
 from influence.output.line_tables import line_document, line_table, positions
 from influence.output.summary import render_summary, summarise
 from influence.output.tables import render_csv, render_json, render_table
+from vehicles.output.figure_files import check_figure_place
 
 
 def _position_list(text: str | None) -> np.ndarray | None:
@@ -34,6 +35,8 @@ def _position_list(text: str | None) -> np.ndarray | None:
 def check_command(model_file: str, fmt: str, plot_file: str | None) -> None:
     """Validate MODEL_FILE and summarise it: spans or members, supports, hinges, total path
     length, degree of static indeterminacy and units."""
+    if plot_file:
+        check_figure_place(plot_file)
     model = read_model(model_file)
     summary = summarise(model)
     click.echo(render_json(summary.as_dict()) if fmt == "json" else render_summary(summary))
@@ -58,6 +61,8 @@ def line_command(model_file: str, response: str, location: str, side: str,
                  fmt: str, plot_file: str | None) -> None:
     """Exact influence line of RESPONSE (reaction, shear, moment, axial, deflection, rotation)
     at a location of MODEL_FILE."""
+    if plot_file:
+        check_figure_place(plot_file)
     model = read_model(model_file)
     line = analyse_model(model).line(Response(response, location, side, component or ""))
     at = _position_list(position_text)

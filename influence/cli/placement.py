@@ -22,6 +22,7 @@ from influence.output.governing_tables import (
 from influence.output.tables import render_csv, render_json, render_table
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadModel
+from vehicles.output.figure_files import check_figure_place
 from vehicles.search.govern import govern
 from vehicles.search.sweep import sweep
 
@@ -71,6 +72,8 @@ def govern_command(model_file: str, response: str, location: str, side: str,
                    concurrent_text: tuple[str, ...], fmt: str, plot_file: str | None) -> None:
     """Where the vehicles must stand for the largest and smallest RESPONSE at a location, how
     large it is, and what else happens then."""
+    if plot_file:
+        check_figure_place(plot_file)
     model = read_model(model_file)
     models, notes = vehicles_for(vehicles, model.units, parse_adjustments(adjust))
     analysis = analyse_model(model)
@@ -114,6 +117,8 @@ def sweep_command(model_file: str, response: str, location: str, side: str,
                   case_name: str | None, direction: str,
                   sense: str, step: float | None, fmt: str, plot_file: str | None) -> None:
     """The effect on RESPONSE as the vehicle travels, against its lead position (exact)."""
+    if plot_file:
+        check_figure_place(plot_file)
     model = read_model(model_file)
     models, notes = vehicles_for((vehicle,), model.units, parse_adjustments(adjust))
     line = analyse_model(model).line(Response(response, location, side, component or ""))

@@ -10,6 +10,7 @@ from influence.cli import main
 from vehicles.library.catalog import library_models, load_model
 from vehicles.loadmodel import CATEGORIES
 from vehicles.output.describe import details, summary
+from vehicles.output.figure_files import check_figure_place
 from vehicles.output.tables import as_json, library_table, model_text
 from vehicles.units import SYSTEMS
 
@@ -54,6 +55,8 @@ def vehicles_command(name: str | None, units: str | None, output_format: str,
         return
     if category is not None:
         raise click.UsageError("--category selects from the list: give no NAME or FILE")
+    if plot_path is not None:
+        check_figure_place(plot_path)
     model = load_model(name, units, parse_adjustments(adjust))
     if plot_path is not None:
         from vehicles.output.figures import plot_model

@@ -232,6 +232,8 @@ def deflection_checks(analysis: Analysis, models: Sequence[LoadModel], basis: De
     its neighbours refines the section (bracket :data:`DEFLECTION_REFINEMENT` of the span; the
     deflection at every trial section is exact).
     """
+    from scipy.optimize import minimize_scalar  # only here: scipy.optimize is slow to import
+
     assert basis.live.deflection_limit
     found = []
     for span in spans(analysis.model, analysis.path):

@@ -63,6 +63,29 @@ def effect_unit(kind: str, units: str, component: str = "") -> str:
     return _render(dimension, units)
 
 
+_SMALL_LENGTH = {"m": ("mm", 1000.0), "ft": ("in", 12.0)}
+
+
+def printed_effect(kind: str, units: str, component: str = "") -> tuple[str, float]:
+    """(unit, factor) of a response as printed tables and plots show it: deflections in mm or
+    in, everything else in the model's own units (factor 1).
+
+    Example:
+        >>> printed_effect("deflection", "kN-m"), printed_effect("moment", "kip-ft")
+        (('mm', 1000.0), ('kip-ft', 1.0))
+    """
+    unit = effect_unit(kind, units, component)
+    if kind == "deflection" and unit in _SMALL_LENGTH:
+        return _SMALL_LENGTH[unit]
+    return unit, 1.0
+
+
+LIVE_LABEL = "LL+IM"
+"""How tables and plots name the live load with its dynamic load allowance, as the standards do
+(AASHTO LRFD Bridge Design Specifications, 3.3.2 load designations: LL vehicular live load, IM
+vehicular dynamic load allowance; from memory, unconfirmed)."""
+
+
 def header_lines(title: str, units: str) -> list[str]:
     """The lines that open every output: title, units, conventions and the caution."""
     names = labels(units)

@@ -5,15 +5,16 @@ from __future__ import annotations
 from typing import Any
 
 from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
-from influence.output.conventions import effect_unit, header_lines
+from influence.output.conventions import LIVE_LABEL, header_lines, printed_effect
 from influence.output.governing_tables import placement_fields
 from influence.output.tables import Table
+from vehicles.output.tabular import ROUND_OFF
 from vehicles.search.placement import Placement
 from vehicles.units import labels
 
 
-def _number(value: float | None) -> float | str:
-    return "-" if value is None else float(value)
+def _number(value: float | None, factor: float = 1.0) -> float | str:
+    return "-" if value is None else factor * float(value)
 
 
 def envelope_header(envelope: Envelope, title: str) -> list[str]:
@@ -22,15 +23,11 @@ def envelope_header(envelope: Envelope, title: str) -> list[str]:
     lines.append("Load models: " + "; ".join(
         f"{m.name} ({m.standard}{', ' + m.clause if m.clause else ''})" if m.standard else m.name
         for m in envelope.models))
-    lines.append(f"Live load per girder line = one lane's effect x distribution "
-                 f"{live.distribution:g} x multiple presence {live.multiple_presence:g}; "
-                 "dynamic load allowance as each load model's cases give it.")
+    lines.append(f"{LIVE_LABEL} (live load with its dynamic load allowance, as each load "
+                 f"model's cases give it) per girder line = one lane's effect x distribution "
+                 f"{live.distribution:g} x multiple presence {live.multiple_presence:g}.")
     lines.extend(envelope.notes)
     return lines
-
-
-ROUND_OFF = 1e-9
-"""Values smaller than this fraction [-] of their column's largest are round-off, shown as 0."""
 
 
 def tidy_columns(rows: list[tuple[Any, ...]]) -> list[tuple[Any, ...]]:
@@ -48,42 +45,35 @@ def tidy_columns(rows: list[tuple[Any, ...]]) -> list[tuple[Any, ...]]:
     return [tuple(row) for row in zip(*cleaned, strict=True)]
 
 
-def envelope_table(envelope: Envelope, kind: str, title: str, compact: bool = False) -> Table:
-    """One response's envelope: section, live max/min with governing placements, dead loads and
-    each combination's largest and smallest value (``compact``: without lead positions and with
-    short governing labels, for printed pages)."""
+def envelope_table(envelope: Envelope, kind: str, title: str) -> Table:
+    """One response's envelope: section, LL+IM largest and smallest for the girder line with
+    their governing placements, dead loads and each combination's largest and smallest value
+    (deflections in mm or in, and no factored deflections: a service check)."""
     names = labels(envelope.units)
-    unit = effect_unit(kind, envelope.units)
+    unit, factor = printed_effect(kind, envelope.units)
     loads = envelope.basis.load_names
-    combinations = envelope.basis.combinations
-    if compact:
-        columns = ["section", f"at [{names.length}]", f"LL max [{unit}]", "governs",
-                   f"LL min [{unit}]", "governs"]
-    else:
-        columns = ["section", f"chainage [{names.length}]", f"live max [{unit}]",
-                   "governing max", f"lead at max [{names.length}]", f"live min [{unit}]",
-                   "governing min", f"lead at min [{names.length}]"]
+    combinations = envelope.basis.combinations if kind != "deflection" else ()
+    columns = ["section", f"chainage [{names.length}]", f"{LIVE_LABEL} max [{unit}]",
+               "governing max", f"lead at max [{names.length}]", f"{LIVE_LABEL} min [{unit}]",
+               "governing min", f"lead at min [{names.length}]"]
     columns += [f"{load} [{unit}]" for load in loads]
     for combination in combinations:
         columns += [f"{combination.name} max [{unit}]", f"{combination.name} min [{unit}]"]
     rows = []
     for entry in envelope.of(kind):
         at = "-" if entry.section.chainage is None else entry.section.chainage
-        row: list[Any]
-        if compact:
-            row = [entry.section.label, at, _number(entry.live_max), _short(entry.live.max),
-                   _number(entry.live_min), _short(entry.live.min)]
-        else:
-            row = [entry.section.label, at, _number(entry.live_max),
-                   governing_label(entry.live.max), _lead(entry.live.max),
-                   _number(entry.live_min), governing_label(entry.live.min),
-                   _lead(entry.live.min)]
-        row += [entry.dead_effect(load) for load in loads]
+        row: list[Any] = [entry.section.label, at, _number(entry.live_max, factor),
+                          governing_label(entry.live.max), _lead(entry.live.max),
+                          _number(entry.live_min, factor), governing_label(entry.live.min),
+                          _lead(entry.live.min)]
+        row += [factor * entry.dead_effect(load) for load in loads]
         for combination in combinations:
-            row += list(entry.combined(combination))
+            row += [factor * value for value in entry.combined(combination)]
         rows.append(tuple(row))
     header = envelope_header(envelope, f"{title}: envelope of {kind}")
-    return Table(header, tuple(columns), tidy_columns(rows))
+    formats = ("text", "position", "effect", "text", "position", "effect", "text", "position",
+               *(["effect"] * (len(columns) - 8)))
+    return Table(header, tuple(columns), tidy_columns(rows), formats=formats)
 
 
 def _short(placement: Placement | None) -> str:
@@ -138,12 +128,16 @@ def envelope_document(envelope: Envelope, title: str) -> dict[str, Any]:
 
 
 def deflection_table(envelope: Envelope, title: str) -> Table:
+    """Each span's largest LL+IM deflection against span / N (deflections in mm or in)."""
     names = labels(envelope.units)
+    unit, factor = printed_effect("deflection", envelope.units)
     limit = envelope.basis.live.deflection_limit
     header = envelope_header(envelope, f"{title}: live-load deflection check, limit span/{limit:g}")
-    rows = [(c.span.number, c.span.length, c.at, c.deflection, c.limit, c.ratio,
-             "pass" if c.passes else "FAIL", governing_label(c.placement))
+    rows = [(c.span.number, c.span.length, c.at, factor * c.deflection, factor * c.limit,
+             c.ratio, "pass" if c.passes else "FAIL", governing_label(c.placement))
             for c in envelope.deflection_checks]
     return Table(header, ("span", f"length [{names.length}]", f"at [{names.length}]",
-                          f"deflection [{names.length}]", f"limit [{names.length}]",
-                          "ratio [-]", "check", "governing"), rows)
+                          f"{LIVE_LABEL} deflection [{unit}]", f"limit [{unit}]",
+                          "ratio [-]", "check", "governing"), rows,
+                 formats=("count", "position", "position", "effect", "effect", "ratio", "text",
+                          "text"))

@@ -1,8 +1,10 @@
-"""Drawings: influence lines with signed areas, and the structure with its path.
+"""Drawings: influence lines with signed areas over a strip showing the structure, and the
+structure with its path, drawn to true shape.
 
-Matplotlib is imported here only, never on the solver's path. Functions take result objects and an
-optional ``ax``, return the axes, and save only when given a path (written under a temporary name,
-then renamed).
+Matplotlib is imported only when a figure is made, never on the solver's path. Functions take
+result objects and an optional ``ax``, return the axes, and save nothing: the one figure saver is
+:func:`vehicles.output.figure_files.save_figure`. Every drawing function draws under
+:func:`vehicles.output.figure_files.plain_text`, so user text never turns into mathtext.
 """
 
 from __future__ import annotations
@@ -16,7 +18,9 @@ from influence.analysis.lines import InfluenceLine
 from influence.model.path import trace
 from influence.model.structure import Model
 from influence.output.conventions import ordinate_unit
-from vehicles.atomic import written_whole
+from influence.output.symbols import Label, draw_hinge, draw_support, place_labels
+from vehicles.output.figure_files import drawing, new_figure, save_figure
+from vehicles.output.tabular import ROUND_OFF, significant
 from vehicles.units import labels
 
 if TYPE_CHECKING:
@@ -32,39 +36,20 @@ PALETTE = {
     "bar": "#8a7f70",
     "grid": "#d9d4cc",
 }
-SAVE_FORMATS = (".png", ".svg", ".pdf")
 SAMPLES_PER_PIECE = 48
 """Points drawn per polynomial piece: drawing only; every number reported is exact."""
-
-
-def _pyplot() -> Any:
-    import matplotlib
-
-    matplotlib.use("Agg", force=False)
-    import matplotlib.pyplot as plt
-
-    return plt
+STRIP_RATIO = 0.3
+"""Height of the structure strip under an influence line, as a fraction of the line's axes."""
 
 
 def new_axes(width: float = 9.0, height: float = 4.0) -> Axes:
-    plt = _pyplot()
-    figure, ax = plt.subplots(figsize=(width, height), layout="constrained")
-    return ax
+    """Axes on a new figure of ``width`` x ``height`` [in]."""
+    return new_figure(width, height).add_subplot()
 
 
 def save(ax: Axes, path: str | Path) -> None:
-    """Save the axes' figure by extension (PNG, SVG or PDF), atomically, and close it."""
-    suffix = Path(path).suffix.lower()
-    if suffix not in SAVE_FORMATS:
-        from influence.errors import InfluenceError
-
-        raise InfluenceError(
-            f"cannot draw to {suffix or 'a file without extension'}", source=str(path),
-            item="--plot", fix="end the name in .png, .svg or .pdf",
-        )
-    figure: Any = ax.get_figure()
-    written_whole(path, lambda name: figure.savefig(name, dpi=150, format=suffix[1:]))
-    _pyplot().close(figure)
+    """Save the axes' figure by extension (PNG, SVG or PDF), whole, in a checked place."""
+    save_figure(ax.get_figure(), path)
 
 
 def dense_points(line: InfluenceLine) -> tuple[np.ndarray, np.ndarray]:
@@ -78,11 +63,27 @@ def dense_points(line: InfluenceLine) -> tuple[np.ndarray, np.ndarray]:
     return np.concatenate(xs), np.concatenate(ys)
 
 
+def line_axes(figure: Any, strip: bool = True, rows: int = 1) -> list[tuple[Axes, Axes | None]]:
+    """``rows`` pairs of (line axes, structure strip under it sharing its chainage axis)."""
+    if not strip:
+        return [(ax, None) for ax in figure.subplots(rows, 1, squeeze=False)[:, 0]]
+    ratios = [1.0, STRIP_RATIO] * rows
+    grid = figure.add_gridspec(2 * rows, 1, height_ratios=ratios)
+    pairs = []
+    for row in range(rows):
+        ax = figure.add_subplot(grid[2 * row])
+        pairs.append((ax, figure.add_subplot(grid[2 * row + 1], sharex=ax)))
+    return pairs
+
+
+@drawing
 def draw_line(line: InfluenceLine, model: Model | None = None, ax: Axes | None = None,
-              title: str = "") -> Axes:
-    """Draw an influence line, its signed areas shaded, the section marked and the supports and
-    hinges of a beam drawn under the axis."""
-    ax = ax if ax is not None else new_axes()
+              title: str = "", strip: Axes | None = None) -> Axes:
+    """Draw an influence line, its signed areas shaded and the section marked; with a model,
+    the structure (supports, hinges, names) is drawn in ``strip`` under the line (a new figure
+    gets one)."""
+    if ax is None:
+        ax, strip = line_axes(new_figure(9.0, 4.6), model is not None)[0]
     x, y = dense_points(line)
     x = np.concatenate([[x[0]], x, [x[-1]]])
     y = np.concatenate([[0.0], y, [0.0]])
@@ -93,68 +94,73 @@ def draw_line(line: InfluenceLine, model: Model | None = None, ax: Axes | None =
     ax.plot(x, y, color=PALETTE["line"], linewidth=1.8)
     ax.axhline(0.0, color=PALETTE["structure"], linewidth=0.9)
     extremes = line.extremes()
-    for extreme, va in ((extremes.largest, "bottom"), (extremes.smallest, "top")):
-        if extreme.value != 0:
+    size = max(abs(extremes.largest.value), abs(extremes.smallest.value))
+    for extreme, below in ((extremes.largest, False), (extremes.smallest, True)):
+        if abs(extreme.value) > ROUND_OFF * size:  # round-off is no extreme worth a label
             ax.plot([extreme.at], [extreme.value], "o", color=PALETTE["line"], markersize=4)
-            ax.annotate(f"{extreme.value:.4g}", (extreme.at, extreme.value), fontsize=8,
-                        xytext=(4, 4 if va == "bottom" else -10), textcoords="offset points")
+            ax.annotate(significant(extreme.value), (extreme.at, extreme.value), fontsize=8,
+                        xytext=(4, -10 if below else 4), textcoords="offset points")
     if line.section_chainage is not None:
         ax.axvline(line.section_chainage, color=PALETTE["section"], linestyle="--",
                    linewidth=1.0, label="section")
-    if model is not None:
-        _draw_supports_under_axis(ax, model, y)
     names = labels(line.units)
     unit = ordinate_unit(line.response.kind, line.units, line.response.component)
-    ax.set_xlabel(f"load position, chainage [{names.length}]")
-    ax.set_ylabel(f"{line.response.kind} per unit load [{unit}]")
+    ax.set_ylabel(f"{line.response.kind} [{unit}]")
     ax.set_title(title or f"Influence line: {line.response.label}", fontsize=10)
     ax.grid(True, color=PALETTE["grid"], linewidth=0.6)
     ax.legend(loc="best", fontsize=8, frameon=False)
+    ax.set_xlim(float(line.breakpoints[0]), float(line.breakpoints[-1]))
+    low, high = ax.get_ylim()
+    ax.set_ylim(low - 0.06 * (high - low), high + 0.1 * (high - low))  # labels clear of title
+    xlabel = f"load position, chainage [{names.length}]"
+    if model is not None and strip is not None:
+        draw_strip(strip, model)
+        ax.tick_params(labelbottom=False)
+        strip.set_xlabel(xlabel)
+    else:
+        ax.set_xlabel(xlabel)
     return ax
 
 
-def _draw_supports_under_axis(ax: Axes, model: Model, y: np.ndarray) -> None:
+def hinge_nodes(model: Model) -> set[str]:
+    """Nodes with a member end released in bending: the hinges of a beam form, the pins of
+    frames and trusses."""
+    found = set(model.hinge_nodes)
+    for member in model.members:
+        if member.release_start:
+            found.add(member.start)
+        if member.release_end:
+            found.add(member.end)
+    return found
+
+
+@drawing
+def draw_strip(strip: Axes, model: Model) -> Axes:
+    """The structure along the path, drawn flat under an influence line: the path, its
+    supports and hinges at their chainages, the support names below."""
     path = trace(model)
-    span = float(np.ptp(y)) or 1.0
-    base = min(float(y.min()), 0.0) - 0.12 * span
-    size = 0.06 * span
-    ax.plot([0, path.total_length], [base, base], color=PALETTE["structure"], linewidth=2.2)
+    colour = PALETTE["structure"]
+    strip.plot([0.0, path.total_length], [0.0, 0.0], color=colour, linewidth=2.2,
+               solid_capstyle="butt")
+    hinges = hinge_nodes(model)
+    first, last = path.legs[0].entry_node, path.legs[-1].exit_node
     for node in model.nodes:
         chainage = path.node_chainage(node.name)
         if chainage is None:
             continue
         if node.support.is_support:
-            _support_glyph(ax, chainage, base, size, path.total_length, node.support.description)
-            ax.annotate(node.name, (chainage, base - 1.6 * size), ha="center", va="top",
-                        fontsize=7, color=PALETTE["structure"])
-        if node.name in model.hinge_nodes:
-            ax.plot([chainage], [base], "o", markersize=6, markerfacecolor="white",
-                    markeredgecolor=PALETTE["structure"])
-    ax.set_ylim(bottom=base - 3.0 * size)
-
-
-def _support_glyph(ax: Axes, x: float, y: float, size: float, length: float, kind: str,
-                   ground: bool = False) -> None:
-    """A support symbol; a fixed support is a wall (beam end) or, with ``ground``, a footing."""
-    half = 0.012 * length
-    colour = PALETTE["structure"]
-    if kind == "fixed" and ground:
-        ax.plot([x - 1.5 * half, x + 1.5 * half], [y, y], color=colour, linewidth=3)
-        for tick in np.linspace(x - 1.5 * half, x + 1.5 * half, 5):
-            ax.plot([tick, tick - 0.5 * half], [y, y - 0.6 * size], color=colour, linewidth=0.8)
-        return
-    if kind == "fixed":
-        ax.plot([x, x], [y - size, y + size], color=colour, linewidth=3)
-        return
-    if kind == "free":
-        return
-    triangle = np.array([[x, y], [x - half, y - size], [x + half, y - size], [x, y]])
-    ax.fill(triangle[:, 0], triangle[:, 1], facecolor="white", edgecolor=colour, linewidth=1)
-    if kind == "roller":
-        ax.plot([x - half, x + half], [y - 1.25 * size] * 2, color=colour, linewidth=1)
-    elif kind not in ("pinned",):
-        ax.annotate("spring", (x, y - 1.1 * size), ha="center", va="top", fontsize=6,
-                    color=colour)
+            side = "left" if node.name == first else "right" if node.name == last else "below"
+            draw_support(strip, chainage, 0.0, node.support, side, colour)
+            strip.annotate(node.name, (chainage, 0.0), xytext=(0, 4),
+                           textcoords="offset points", ha="center", va="bottom", fontsize=7,
+                           color=colour)
+        if node.name in hinges and node.name not in (first, last):
+            draw_hinge(strip, chainage, 0.0, colour)
+    strip.set_ylim(-1.0, 1.0)
+    strip.set_yticks([])
+    for side in ("left", "right", "top"):
+        strip.spines[side].set_visible(False)
+    return strip
 
 
 def _pin_joints(model: Model) -> set[str]:
@@ -170,52 +176,105 @@ def _pin_joints(model: Model) -> set[str]:
     return touched - continuous
 
 
-def draw_structure(model: Model, ax: Axes | None = None) -> Axes:
-    """Draw members (bars thinner), supports, releases, the travel path and the names."""
-    ax = ax if ax is not None else new_axes(9.0, 5.0)
+def _continuous_ends(model: Model) -> dict[str, int]:
+    """How many member ends meet each node without a release."""
+    count: dict[str, int] = {}
+    for member in model.members:
+        for node, released in ((member.start, member.release_start),
+                               (member.end, member.release_end)):
+            count[node] = count.get(node, 0) + (0 if released else 1)
+    return count
+
+
+def structure_size(model: Model, width: float = 9.0) -> tuple[float, float]:
+    """Figure size [in] for a structure drawn at equal aspect: as tall as its shape needs."""
+    xs = [n.x for n in model.nodes]
+    ys = [n.y for n in model.nodes]
+    extent = max(max(xs) - min(xs), 1e-9)
+    height = width * (max(ys) - min(ys)) / extent
+    return width, float(min(max(height + 1.5, 1.9), 0.8 * width))
+
+
+@drawing
+def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axes:
+    """Draw members (bars thinner), supports, hinges, the travel path and the names, at equal
+    aspect, with symbols sized to the drawing and labels clear of members and of each other."""
+    ax = ax if ax is not None else new_axes(*structure_size(model))
     path = trace(model)
     on_path = {leg.member for leg in path.legs}
     xs = [n.x for n in model.nodes]
     ys = [n.y for n in model.nodes]
-    extent = max(max(xs) - min(xs), max(ys) - min(ys), 1.0)
-    seen_pairs: set[frozenset[str]] = set()
-    pinned_nodes = _pin_joints(model)
+    extent = max(max(xs) - min(xs), max(ys) - min(ys), 1e-9)
+    flat = max(ys) - min(ys) <= 1e-9 * extent
+    pins = _pin_joints(model)
+    continuous = _continuous_ends(model)
+    segments = []
+    from matplotlib.transforms import offset_copy
+
+    figure: Any = ax.get_figure()
     for member in model.members:
         a, b = model.node(member.start), model.node(member.end)
         colour = PALETTE["bar"] if member.is_bar else PALETTE["structure"]
         ax.plot([a.x, b.x], [a.y, b.y], color=colour, linewidth=1.2 if member.is_bar else 2.2,
                 zorder=2)
+        segments.append(((a.x, a.y), (b.x, b.y)))
         if member.name in on_path:
-            ax.plot([a.x, b.x], [a.y, b.y], color=PALETTE["path"], linewidth=5, alpha=0.35,
+            ax.plot([a.x, b.x], [a.y, b.y], color=PALETTE["path"], linewidth=6, alpha=0.3,
                     zorder=1, solid_capstyle="butt")
+        length = max(float(np.hypot(b.x - a.x, b.y - a.y)), 1e-12)
         for released, near, far in ((member.release_start, a, b), (member.release_end, b, a)):
-            if released and near.name not in pinned_nodes:
-                t = 0.025 * extent / max(model.length_of(member.name), 1e-9)
-                px, py = near.x + (far.x - near.x) * t, near.y + (far.y - near.y) * t
-                ax.plot([px], [py], "o", markersize=4.5, markerfacecolor="white",
-                        markeredgecolor=colour, zorder=3)
-        pair = frozenset((member.start, member.end))
-        below = pair in seen_pairs  # a second member on the same nodes: label it underneath
-        seen_pairs.add(pair)
-        ax.annotate(member.name, ((a.x + b.x) / 2, (a.y + b.y) / 2), fontsize=7,
-                    color=PALETTE["path"] if member.name in on_path else PALETTE["line"],
-                    ha="center", va="top" if below else "bottom",
-                    xytext=(0, -4 if below else 3), textcoords="offset points")
+            if not released or near.name in pins:
+                continue
+            if continuous.get(near.name, 0) <= 1:  # a hinge between two members: at the node
+                draw_hinge(ax, near.x, near.y, colour)
+                continue
+            # a member pinned into a rigid joint: the circle at its end, beside the node
+            ux, uy = (far.x - near.x) / length, (far.y - near.y) / length
+            shifted = offset_copy(ax.transData, figure, x=7 * ux, y=7 * uy, units="points")
+            ax.plot([near.x], [near.y], "o", markersize=5, markerfacecolor="white",
+                    markeredgecolor=colour, zorder=6, transform=shifted)
+    supported = [n for n in model.nodes if n.support.is_support]
     for node in model.nodes:
-        pin = node.name in pinned_nodes
-        ax.plot([node.x], [node.y], "o" if pin else "s", markersize=5 if pin else 3,
-                markerfacecolor="white" if pin else PALETTE["structure"],
-                markeredgecolor=PALETTE["structure"], zorder=4)
-        ax.annotate(node.name, (node.x, node.y), fontsize=7, xytext=(4, 4),
-                    textcoords="offset points", color=PALETTE["structure"])
-        if node.support.is_support:
-            _support_glyph(ax, node.x, node.y, 0.03 * extent, extent * 2.0,
-                           node.support.description, ground=True)
-    if max(ys) - min(ys) > 0.05 * extent:  # a frame or truss: true shape; a girder: stretched
-        ax.set_aspect("equal", adjustable="datalim")
+        pin = node.name in pins
+        if pin:
+            draw_hinge(ax, node.x, node.y, PALETTE["structure"])
+        else:
+            ax.plot([node.x], [node.y], "s", markersize=2.5, color=PALETTE["structure"],
+                    zorder=4)
+    for node in supported:
+        side = "below"
+        if flat and node.x <= min(xs) and node.support.description == "fixed":
+            side = "left"
+        elif flat and node.x >= max(xs) and node.support.description == "fixed":
+            side = "right"
+        draw_support(ax, node.x, node.y, node.support, side, PALETTE["structure"])
+    ax.set_aspect("equal", adjustable="datalim")  # true shape: limits follow the box
+    ax.margins(0.04)
     names = labels(model.units)
     ax.set_xlabel(f"x [{names.length}]")
-    ax.set_ylabel(f"y [{names.length}]")
-    ax.set_title(f"{model.title}: structure and travel path (shaded)", fontsize=10)
-    ax.grid(True, color=PALETTE["grid"], linewidth=0.5)
+    if flat:
+        ax.set_yticks([])
+        for side in ("left", "right", "top"):
+            ax.spines[side].set_visible(False)
+    else:
+        ax.set_ylabel(f"y [{names.length}]")
+        ax.grid(True, color=PALETTE["grid"], linewidth=0.5)
+    ax.set_title(title or f"{model.title}: structure and travel path (shaded)", fontsize=10)
+    found = []
+    for node in model.nodes:
+        offsets: tuple[tuple[float, float], ...] = (
+            ((0, -24), (12, -24), (-12, -24)) if node.support.is_support else
+            ((9, 8), (-9, 8), (9, -8), (-9, -8), (0, 11), (0, -11)))
+        found.append(Label(node.name, ((node.x, node.y),), offsets, True, PALETTE["structure"]))
+    for member in model.members:
+        a, b = model.node(member.start), model.node(member.end)
+        length = max(float(np.hypot(b.x - a.x, b.y - a.y)), 1e-12)
+        nx_, ny_ = -(b.y - a.y) / length, (b.x - a.x) / length
+        if ny_ < 0:
+            nx_, ny_ = -nx_, -ny_
+        anchors = tuple((a.x + t * (b.x - a.x), a.y + t * (b.y - a.y)) for t in (0.5, 0.3, 0.7))
+        offsets = tuple((side * d * nx_, side * d * ny_) for d in (8, 15, 22) for side in (1, -1))
+        found.append(Label(member.name, anchors, offsets, False,
+                           PALETTE["path"] if member.name in on_path else PALETTE["line"], 6.5))
+    place_labels(ax, found, segments)
     return ax

@@ -8,10 +8,26 @@ from typing import Any
 from influence.design.governing import GoverningResult
 from influence.output.conventions import effect_unit, header_lines
 from influence.output.tables import Table
+from vehicles.output.tabular import fixed
 from vehicles.search.concurrent import Concurrent
 from vehicles.search.placement import Placement
 from vehicles.search.sweep import Sweep
 from vehicles.units import labels
+
+
+def positions_text(values: Sequence[float], decimals: int = 2) -> str:
+    """Chainages [length] as a short list, front to rear: '12.18 16.45 20.72'.
+
+    Example:
+        >>> positions_text([12.183, 16.45, -0.0001])
+        '12.18 16.45 0.00'
+    """
+    return " ".join(fixed(v, decimals) for v in values) or "-"
+
+
+def segments_text(segments: Sequence[tuple[float, float]]) -> str:
+    """Loaded stretches [length]: '0.00-24.00, 56.00-80.00'."""
+    return ", ".join(f"{fixed(a, 2)}-{fixed(b, 2)}" for a, b in segments) or "-"
 
 
 def _concurrent_document(result: GoverningResult,
@@ -100,13 +116,15 @@ def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = 
         for rank, (p, c) in enumerate(zip(placements, concurrents, strict=True), start=1):
             rows.append((
                 sense, rank, p.value, p.model, p.case, p.direction, p.lead_position,
-                " ".join(f"{x:.4g}" for x in p.axle_positions) or "-",
-                " ".join(f"{r.value:.4g}" for r in p.ranged_values) or "-",
+                positions_text(p.axle_positions),
+                positions_text([r.value for r in p.ranged_values if r.value is not None]),
                 "-" if p.section_axle is None else f"axle {p.section_axle + 1}",
-                " ".join(f"{a:.4g}-{b:.4g}" for a, b in p.lane_segments) or "-",
+                segments_text(p.lane_segments),
                 *(value.value for value in c),
             ))
-    return Table(header, tuple(columns), rows)
+    formats = ("text", "count", "effect", "text", "text", "text", "position", "text", "text",
+               "text", "text", *(["effect"] * len(result.others)))
+    return Table(header, tuple(columns), rows, formats=formats)
 
 
 def sweep_table(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
@@ -118,11 +136,12 @@ def sweep_table(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
                   "jumps a position is listed twice (left, then right limit).")
     rows = []
     for s in sweeps:
-        gaps = " ".join(f"{r.value:.4g}" for r in s.ranged_values) or "-"
+        gaps = positions_text([r.value for r in s.ranged_values if r.value is not None])
         for x, v in zip(s.lead_positions, s.values, strict=True):
             rows.append((s.case, s.direction, s.sense, gaps, float(x), float(v)))
     return Table(header, ("case", "direction", "lane for", f"gaps used [{names.length}]",
-                          f"lead [{names.length}]", f"effect [{unit}]"), rows)
+                          f"lead [{names.length}]", f"effect [{unit}]"), rows,
+                 formats=("text", "text", "text", "text", "position", "effect"))
 
 
 def sweep_document(sweeps: Sequence[Sweep], kind: str, units: str, title: str,

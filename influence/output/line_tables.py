@@ -94,4 +94,5 @@ def line_table(line: InfluenceLine, title: str, at: np.ndarray) -> Table:
         header.append("Zero crossings at " + ", ".join(f"{c:.6g}" for c in crossings)
                       + f" {names.length}.")
     rows = [(float(x), float(v)) for x, v in zip(at, ordinates(line, at), strict=True)]
-    return Table(header, (f"load chainage [{names.length}]", f"ordinate [{unit}]"), rows)
+    return Table(header, (f"load chainage [{names.length}]", f"ordinate [{unit}]"), rows,
+                 formats=("position", "number"))

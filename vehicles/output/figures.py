@@ -20,9 +20,9 @@ from collections.abc import Sequence
 from pathlib import Path
 from typing import Any
 
-from vehicles.atomic import written_whole
-from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadCase, LoadModel
+from vehicles.output.figure_files import drawing, new_figure, save_figure
+from vehicles.output.tabular import significant
 from vehicles.train import Patch, Train
 from vehicles.units import labels
 
@@ -34,13 +34,11 @@ _BLOCK_HEIGHT = 0.35
 
 
 def _new_axes() -> Any:
-    from matplotlib.figure import Figure
-
-    return Figure(figsize=(9.0, 2.6), layout="constrained").add_subplot()
+    return new_figure(9.0, 2.6).add_subplot()
 
 
 def _num(value: float) -> str:
-    return f"{value:.4g}"
+    return significant(value)
 
 
 def _gap_label(train: Train, index: int, used: float, unit: str) -> str:
@@ -50,6 +48,7 @@ def _gap_label(train: Train, index: int, used: float, unit: str) -> str:
     return f"{_num(used)} {unit}"
 
 
+@drawing
 def plot_train(train: Train, *, units: str = "kN-m", choices: Sequence[float] | None = None,
                ax: Any = None) -> Any:
     """Draw one train.
@@ -72,8 +71,8 @@ def plot_train(train: Train, *, units: str = "kN-m", choices: Sequence[float] | 
     front, rear = min(finite), max(finite)
     margin = max(0.15 * (rear - front), 1.0)
     left, right = front - margin, rear + margin
-    top_load = max(a.axle_loads, default=1.0)
-    top_intensity = max(a.patch_intensities, default=1.0)
+    top_load = max(max(a.axle_loads, default=1.0), 1e-300)
+    top_intensity = max(max(a.patch_intensities, default=1.0), 1e-300)
     for start, end, q in zip(a.patch_starts, a.patch_ends, a.patch_intensities, strict=True):
         x0, x1 = max(start, left), min(end, right)
         height = _BLOCK_HEIGHT * q / top_intensity
@@ -95,7 +94,7 @@ def plot_train(train: Train, *, units: str = "kN-m", choices: Sequence[float] | 
     _dimension_gaps(ax, train, a, unit.length)
     ax.axhline(0.0, color="black", linewidth=0.8)
     ax.set_xlim(left, right)
-    ax.set_ylim(-0.45, _ARROW_HEIGHT + 0.45)
+    ax.set_ylim(-0.7, _ARROW_HEIGHT + 0.45)
     ax.set_yticks([])
     ax.set_xlabel(f"distance behind the front [{unit.length}]  (travel to the left)")
     for side in ("top", "right", "left"):
@@ -137,7 +136,9 @@ def _lane_text(case: LoadCase, units: str) -> str:
     return "; ".join(parts)
 
 
-def plot_model(model: LoadModel, path: str | Path | None = None) -> tuple[Any, ...]:
+@drawing
+def plot_model(model: LoadModel, path: str | Path | None = None,
+               size: tuple[float, float] | None = None) -> tuple[Any, ...]:
     """Draw every case of a model, one row a case, and save the figure when a path is given.
 
     The file is written under a temporary name and renamed, so it appears whole or not at all.
@@ -145,13 +146,12 @@ def plot_model(model: LoadModel, path: str | Path | None = None) -> tuple[Any, .
     Args:
         model: the load model.
         path: image file to write (.png, .svg, .pdf); None to only draw.
+        size: width and height of the figure [in]; default 9 wide, 2.6 a case.
 
     Returns:
         The axes, one per case.
     """
-    from matplotlib.figure import Figure
-
-    figure = Figure(figsize=(9.0, 2.6 * len(model.cases)), layout="constrained")
+    figure = new_figure(*(size or (9.0, 2.6 * len(model.cases))))
     axes = figure.subplots(len(model.cases), 1, squeeze=False)[:, 0]
     for ax, case in zip(axes, model.cases, strict=True):
         lane = _lane_text(case, model.units)
@@ -165,17 +165,5 @@ def plot_model(model: LoadModel, path: str | Path | None = None) -> tuple[Any, .
                         fontsize=8)
         ax.set_title(f"{model.name}: {case.name}", loc="left", fontsize=10)
     if path is not None:
-        _save(figure, Path(path))
+        save_figure(figure, path)
     return tuple(axes)
-
-
-def _save(figure: Any, path: Path) -> None:
-    suffix = path.suffix.lstrip(".").lower()
-    if suffix not in figure.canvas.get_supported_filetypes():
-        raise VehicleError(f"cannot draw to a '.{suffix}' file", source=str(path),
-                           fix="give a path ending in .png, .svg or .pdf")
-    try:
-        written_whole(path, lambda name: figure.savefig(name, format=suffix))
-    except OSError as error:
-        raise VehicleError(f"cannot write the drawing: {error.strerror}", source=str(path),
-                           fix="give a path in a writable folder") from None

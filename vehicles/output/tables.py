@@ -16,6 +16,7 @@ import json
 from collections.abc import Sequence
 from typing import Any
 
+from vehicles.output.tabular import render_columns
 from vehicles.units import labels
 
 
@@ -34,13 +35,6 @@ def _quantity(value: float | Sequence[float] | None, unit: str) -> str:
     return f"{_num(low)} to {_num(high)} {unit}"
 
 
-def _columns(rows: list[list[str]]) -> str:
-    widths = [max(len(row[i]) for row in rows) for i in range(len(rows[0]))]
-    lines = ["  ".join(cell.ljust(width) for cell, width in zip(row, widths, strict=True))
-             for row in rows]
-    return "\n".join(line.rstrip() for line in lines)
-
-
 def _short(text: str, width: int = 48) -> str:
     return text if len(text) <= width else text[: width - 4].rstrip() + " ..."
 
@@ -56,7 +50,7 @@ def library_table(rows: Sequence[dict[str, Any]]) -> str:
             load += " + unlimited uniform"
         table.append([row["name"], row["category"] or "-", row["units"], str(row["cases"]),
                       load, _quantity(row["length"], unit.length), _short(row["standard"])])
-    return _columns(table)
+    return render_columns(table)
 
 
 def _train_lines(train: dict[str, Any], unit: Any) -> list[str]:
@@ -77,7 +71,7 @@ def _train_lines(train: dict[str, Any], unit: Any) -> list[str]:
             rows.append([str(number), "uniform",
                          _quantity(item["intensity"], unit.force_per_length),
                          _quantity(item["gap"], unit.length), start, extent])
-    table = _columns(rows).splitlines()
+    table = render_columns(rows).splitlines()
     return [head, *("    " + line for line in table)]
 
 
@@ -113,7 +107,7 @@ def _traffic_lines(model: dict[str, Any]) -> list[str]:
         rows = [["traffic type", *names]]
         rows += [[t["name"], *(f"{_num(100 * t['shares'].get(c, 0.0))} %" for c in names)]
                  for t in model["traffic_types"]]
-        lines += ["", "share of the heavy vehicles:", *("  " + r for r in _columns(rows)
+        lines += ["", "share of the heavy vehicles:", *("  " + r for r in render_columns(rows)
                                                          .splitlines())]
         lines += [f"  {t['name']}: {t['note']}" for t in model["traffic_types"] if t["note"]]
     if model["traffic_categories"]:
