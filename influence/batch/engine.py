@@ -55,20 +55,26 @@ Progress = Callable[[int], None]
 
 @contextmanager
 def batch_client(scheduler: str | None = None, workers: int | None = None, *,
-                 timeout: float = CONNECT_TIMEOUT) -> Iterator[Any]:
+                 timeout: float | None = None) -> Iterator[Any]:
     """A Dask client: connected to ``scheduler`` if given, else to a local cluster of
     ``workers`` processes (default: one per core) started here and closed on leaving.
 
+    Args:
+        scheduler: a running scheduler's address, such as tcp://host:8786.
+        workers: worker processes of the local cluster.
+        timeout: seconds to wait for the scheduler (default :data:`CONNECT_TIMEOUT`).
+
     Raises:
-        BatchError: when the scheduler cannot be reached.
+        BatchError: when the address is malformed or the scheduler cannot be reached.
     """
     from distributed import Client, LocalCluster
 
     if scheduler:
+        _check_address(scheduler)
         try:
-            client = Client(scheduler, timeout=timeout, set_as_default=False)
-        except (OSError, TimeoutError, ValueError) as error:
-            raise BatchError(f"cannot reach the scheduler at {scheduler} ({one_line(error)})",
+            client = Client(scheduler, timeout=timeout or CONNECT_TIMEOUT, set_as_default=False)
+        except (OSError, TimeoutError) as error:
+            raise BatchError(f"cannot reach the scheduler at {scheduler} ({_first_line(error)})",
                              item="--scheduler",
                              fix="start one with `dask scheduler` and give its tcp://host:port"
                              ) from None
@@ -80,6 +86,22 @@ def batch_client(scheduler: str | None = None, workers: int | None = None, *,
                       dashboard_address=":0", silence_logs=logging.ERROR) as cluster, \
             Client(cluster, set_as_default=False) as client:
         yield client
+
+
+def _check_address(address: str) -> None:
+    """Refuse a malformed address before a client is built on it (a client that fails on one
+    hangs when it is collected)."""
+    from distributed.comm.addressing import get_address_host_port, normalize_address
+
+    try:
+        get_address_host_port(normalize_address(address))
+    except ValueError as error:
+        raise BatchError(f"{address!r} is not a scheduler address ({_first_line(error)})",
+                         item="--scheduler", fix="write it as tcp://host:port") from None
+
+
+def _first_line(error: BaseException) -> str:
+    return (str(error).strip().splitlines() or [type(error).__name__])[0]
 
 
 def planned(inventory: Inventory, job: Job) -> tuple[tuple[Structure, ...], tuple[Route, ...]]:
