@@ -103,7 +103,7 @@ def test_route_file_and_inventory_routes() -> None:
     ('[[run]]\nkind = "envelope"\ncompare_with = "design"\n', "compare_with = 'design'"),
     ('[[run]]\nkind = "envelope"\n[[run]]\nkind = "envelope"\n',
      "two runs are named 'envelope'"),
-    ('title = "no runs"\n', "no runs"),
+    ('title = "nothing to run"\n', "no run"),
     ('route = "Quarry haul"\nroutes = "routes.toml"\n[[run]]\nkind = "envelope"\n',
      "route 'Quarry haul' is not in the route file"),
 ])

@@ -27,7 +27,7 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
-from influence.batch.job_fields import vehicle_names
+from influence.batch.fields import vehicle_names
 from influence.batch.rows import Subject
 from influence.design.loading import vehicles_for
 from influence.errors import BatchError

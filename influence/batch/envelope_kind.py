@@ -14,6 +14,21 @@ effect of one lane times the live-load scale of the model file (as
 (:mod:`influence.batch.comparison`). Where the model file sets a deflection limit and deflection
 is enveloped, one ``limit`` row per span holds the vehicle's largest live deflection against
 span / N (pass or fail).
+
+Example (one 100 kN axle on a 10 m simple span: PL/4 = 250 kN m at midspan, with the axle over
+it; no negative moment there):
+    >>> from influence.analysis.lines import analyse_model
+    >>> from influence.batch.inventory import Structure
+    >>> from influence.model.reader import model_file_from_document
+    >>> from vehicles.loadmodel import LoadCase, LoadModel
+    >>> from vehicles.train import Axle, Train
+    >>> read = model_file_from_document({"beam": {"spans": [10.0], "EI": 1.0,
+    ...                                           "supports": ["pinned", "roller"]}})
+    >>> axle = LoadModel("P", "one axle", "kN-m", (LoadCase("axle", Train("P", (Axle(100.0),))),))
+    >>> subject = Subject(Structure("B-1", "b1.toml"), read, analyse_model(read.model), (axle,))
+    >>> rows = envelope_rows(EnvelopeSettings(("moment",), per_span=2), subject)
+    >>> [(r.level, round(r.value, 9), r.lead_position) for r in rows if r.section == "5"]
+    [('max', 250.0, 5.0), ('min', 0.0, 0.0)]
 """
 
 from __future__ import annotations
@@ -25,7 +40,7 @@ from typing import Any
 
 from influence.analysis.responses import Response
 from influence.batch.comparison import Comparison, check, magnitude, read_comparison
-from influence.batch.job_fields import positive_int, positive_number, text_list
+from influence.batch.fields import positive_int, positive_number, text_list
 from influence.batch.rows import ResultRow, Subject, placed
 from influence.design.envelope import (
     ENVELOPE_CHOICES,

@@ -34,7 +34,7 @@ from typing import Any
 from influence.analysis.lines import Analysis
 from influence.analysis.responses import Response
 from influence.batch.comparison import Comparison, check, magnitude, read_comparison
-from influence.batch.job_fields import text_list
+from influence.batch.fields import text_list
 from influence.batch.rows import ResultRow, Subject, placed
 from influence.design.governing import governing, parse_concurrent
 from influence.design.sections import spans

@@ -33,8 +33,8 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
-from influence.errors import BatchError, ModelError
-from influence.model.fields import check_keys, read_toml
+from influence.batch.fields import read_document, table_list
+from influence.errors import BatchError
 
 ROW_KEYS = ("id", "model", "route", "owner", "location")
 """The fields of an inventory row; ``id`` and ``model`` are required."""
@@ -110,23 +110,9 @@ def read_inventory(path: str | Path) -> Inventory:
 
 
 def _toml_records(path: Path) -> tuple[str, list[tuple[str, dict[str, Any]]]]:
-    source = str(path)
-    try:
-        document = read_toml(path)
-        check_keys(document, {"title", "structures"}, "top level", source)
-    except ModelError as error:
-        raise BatchError(error.problem, source=source, item=error.item, fix=error.fix) from None
-    rows = document.get("structures")
-    if not isinstance(rows, list) or not rows:
-        raise BatchError("no structures", source=source, item="structures",
-                         fix="list each structure as a [[structures]] table with id and model")
-    records = []
-    for index, row in enumerate(rows):
-        item = f"structures[{index}]"
-        if not isinstance(row, dict):
-            raise BatchError(f"expected a table, got {row!r}", source=source, item=item,
-                             fix="write each structure as a [[structures]] table")
-        records.append((item, row))
+    document = read_document(path, {"title", "structures"})
+    records = table_list(document, "structures", str(path),
+                         "list each structure as a [[structures]] table with id and model")
     return str(document.get("title", "")), records
 
 

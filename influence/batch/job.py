@@ -38,11 +38,11 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
-from influence.batch.job_fields import vehicle_names
+from influence.batch.fields import read_document, refused, table_list, vehicle_names
 from influence.batch.kinds import JobKind, job_kind
 from influence.batch.routes import Route, read_route_file
 from influence.errors import BatchError, ModelError
-from influence.model.fields import check_keys, read_number, read_toml
+from influence.model.fields import read_number
 
 JOB_KEYS = ("title", "routes", "route", "run")
 RUN_KEYS = ("kind", "name", "vehicles", "adjust")
@@ -104,17 +104,11 @@ def read_job(path: str | Path) -> Job:
     source = str(path)
     if not path.is_file():
         raise BatchError("job file not found", source=source, fix="check the path of the job")
-    try:
-        document = read_toml(path)
-        check_keys(document, set(JOB_KEYS), "top level", source)
-    except ModelError as error:
-        raise BatchError(error.problem, source=source, item=error.item, fix=error.fix) from None
+    document = read_document(path, set(JOB_KEYS))
     folder = path.resolve().parent
-    tables = document.get("run")
-    if not isinstance(tables, list) or not tables:
-        raise BatchError("no runs", source=source, item="run",
-                         fix='add a [[run]] table with kind = "envelope" or "govern" and vehicles')
-    runs = tuple(_run(table, index, folder, source) for index, table in enumerate(tables))
+    tables = table_list(document, "run", source,
+                        'add a [[run]] table with kind = "envelope" or "govern" and vehicles')
+    runs = tuple(_run(table, item, folder, source) for item, table in tables)
     routes: tuple[Route, ...] = ()
     if "routes" in document:
         routes = read_route_file(folder / _text(document["routes"], source, "routes"))
@@ -125,11 +119,7 @@ def read_job(path: str | Path) -> Job:
     return Job(runs, _text(document.get("title", ""), source, "title"), routes, route, source)
 
 
-def _run(table: Any, index: int, folder: Path, source: str) -> Run:
-    item = f"run[{index}]"
-    if not isinstance(table, dict):
-        raise BatchError(f"expected a table, got {table!r}", source=source, item=item,
-                         fix="write each run as a [[run]] table")
+def _run(table: dict[str, Any], item: str, folder: Path, source: str) -> Run:
     kind = job_kind(table.get("kind"), source, item)
     own = {key: value for key, value in table.items() if key not in RUN_KEYS}
     if kind.keys is not None:
@@ -148,7 +138,7 @@ def _run(table: Any, index: int, folder: Path, source: str) -> Run:
         adjustments = tuple(sorted((str(k), read_number(v, f"{item}.adjust.{k}", source))
                                    for k, v in adjust.items()))
     except ModelError as error:
-        raise BatchError(error.problem, source=source, item=error.item, fix=error.fix) from None
+        raise refused(error) from None
     name = _text(table.get("name", kind.name), source, f"{item}.name") or kind.name
     return Run(name, kind, vehicles, adjustments, kind.read(own, folder, source, item))
 

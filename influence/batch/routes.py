@@ -25,9 +25,10 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from pathlib import Path
 
+from influence.batch.fields import read_document, refused, table_list
 from influence.batch.inventory import Inventory
 from influence.errors import BatchError, ModelError
-from influence.model.fields import check_keys, read_toml
+from influence.model.fields import check_keys
 
 
 @dataclass(frozen=True)
@@ -45,25 +46,15 @@ def read_route_file(path: str | Path) -> tuple[Route, ...]:
         BatchError: when the file is missing or a route lacks its name or structures.
     """
     source = str(path)
-    try:
-        document = read_toml(path)
-        check_keys(document, {"routes"}, "top level", source)
-    except ModelError as error:
-        raise BatchError(error.problem, source=source, item=error.item, fix=error.fix) from None
-    tables = document.get("routes")
-    if not isinstance(tables, list) or not tables:
-        raise BatchError("no routes", source=source, item="routes",
-                         fix="write each route as a [[routes]] table with name and structures")
+    document = read_document(path, {"routes"})
     routes = []
-    for index, table in enumerate(tables):
-        item = f"routes[{index}]"
-        if not isinstance(table, dict):
-            raise BatchError(f"expected a table, got {table!r}", source=source, item=item,
-                             fix="write each route as a [[routes]] table")
+    for item, table in table_list(document, "routes", source,
+                                  "write each route as a [[routes]] table with name and "
+                                  "structures"):
         try:
             check_keys(table, {"name", "structures"}, item, source)
         except ModelError as error:
-            raise BatchError(error.problem, source=source, item=item, fix=error.fix) from None
+            raise refused(error) from None
         name, ids = table.get("name"), table.get("structures")
         if not isinstance(name, str) or not name.strip():
             raise BatchError("the route has no name", source=source, item=item,

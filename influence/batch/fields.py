@@ -1,4 +1,5 @@
-"""Typed values of a job file, read with one-line errors that name the file, the run and the fix.
+"""Typed values of the batch files (inventory, routes, job), read with one-line errors that name
+the file, the item and the fix.
 
 Example:
     >>> import pathlib
@@ -17,9 +18,41 @@ import os
 from pathlib import Path
 from typing import Any
 
-from influence.errors import BatchError
+from influence.errors import BatchError, ModelError
+from influence.model.fields import check_keys, read_toml
 from vehicles.errors import VehicleError
 from vehicles.library.catalog import load_model
+
+
+def refused(error: ModelError) -> BatchError:
+    """A model-file reader's error about a batch file, as a batch error."""
+    return BatchError(error.problem, source=error.source, item=error.item, fix=error.fix)
+
+
+def read_document(path: str | Path, keys: set[str]) -> dict[str, Any]:
+    """A TOML file whose top level holds only ``keys``."""
+    try:
+        document = read_toml(path)
+        check_keys(document, keys, "top level", str(path))
+    except ModelError as error:
+        raise refused(error) from None
+    return document
+
+
+def table_list(document: dict[str, Any], key: str, source: str,
+               fix: str) -> list[tuple[str, dict[str, Any]]]:
+    """The tables of the array ``[[key]]``, each with its item label ("key[0]", ...)."""
+    tables = document.get(key)
+    if not isinstance(tables, list) or not tables:
+        raise BatchError(f"no {key}", source=source, item=key, fix=fix)
+    found = []
+    for index, table in enumerate(tables):
+        item = f"{key}[{index}]"
+        if not isinstance(table, dict):
+            raise BatchError(f"expected a table, got {table!r}", source=source, item=item,
+                             fix=f"write each as a [[{key}]] table")
+        found.append((item, table))
+    return found
 
 
 def text_list(value: Any, source: str, item: str) -> tuple[str, ...]:
