@@ -8,9 +8,9 @@ and checks every value against the structure's own design loading: one task per 
 
 Each cluster is started first and warmed (every worker imports the library and computes one
 structure) so that the time measured is the batch itself; cluster start-up is printed apart, and
-so are the cores and the load average before each run: two workers can only be twice as fast
-where two cores are free. Nothing is asserted: the figures depend on the machine and on what
-else it runs.
+so are the cores, the load average before each run and the CPU time the workers got: two
+workers can only be twice as fast where two cores are free for them. Nothing is asserted: the
+figures depend on the machine and on what else it runs.
 
 Run:
     python benchmarks/batch_benchmark.py [--structures 200] [--seed 7]
@@ -72,19 +72,22 @@ def generate(folder: Path, count: int, seed: int) -> tuple[Path, Path]:
     return inventory, job
 
 
-def measure(inventory: Inventory, job: Job, workers: int) -> tuple[float, float]:
-    """(seconds to start and warm the cluster, seconds for the batch)."""
+def measure(inventory: Inventory, job: Job, workers: int) -> tuple[float, float, float]:
+    """(seconds to start and warm the cluster, seconds for the batch, CPU seconds the workers
+    spent on it)."""
     start = time.perf_counter()
     with batch_client(workers=workers) as client:
         warm = Inventory(inventory.structures[:workers])
         run_batch(warm, job, client)  # every worker imports the library and runs one task
+        before = client.run(time.process_time)
         ready = time.perf_counter()
         results = run_batch(inventory, job, client)
         done = time.perf_counter()
+        after = client.run(time.process_time)
     failed = results.count("error")
     if failed:
         print(f"  ({failed} structures in error)")
-    return ready - start, done - ready
+    return ready - start, done - ready, sum(after[w] - before[w] for w in after)
 
 
 def main() -> None:
@@ -101,11 +104,13 @@ def main() -> None:
         rates = {}
         for workers in (1, 2):
             load = os.getloadavg()[0]
-            startup, seconds = measure(inventory, job, workers)
+            startup, seconds, cpu = measure(inventory, job, workers)
             rates[workers] = len(inventory.structures) / seconds
             print(f"{workers} worker{'s' * (workers > 1)}: {seconds:.1f} s, "
-                  f"{rates[workers]:.2f} structures/s (cluster start and warm-up {startup:.1f} s;"
-                  f" {os.cpu_count()} cores, load average {load:.1f} before)")
+                  f"{rates[workers]:.2f} structures/s; the workers had "
+                  f"{cpu / seconds:.2f} cores' worth of CPU ({cpu / len(inventory.structures):.2f}"
+                  f" CPU s a structure); cluster start and warm-up {startup:.1f} s; "
+                  f"{os.cpu_count()} cores, load average {load:.1f} before")
         print(f"scaling ratio, two workers over one: {rates[2] / rates[1]:.2f}")
 
 

@@ -201,6 +201,13 @@ def test_example_permit_route_through_the_command(client: Any, tmp_path: Path) -
     routes = (out / "routes.csv").read_text().splitlines()
     assert routes[0].startswith("# Permit 24-117")
     assert "HC-131 > HC-122 > HC-114 > HC-107,4,fail,HC-122" in routes[-1]
+    before = (out / "routes.csv").read_text()
+    resumed = CliRunner().invoke(main, [
+        "batch", str(EXAMPLES / "harrow-county.csv"), "--job", str(EXAMPLES / "permit-route.toml"),
+        "--out", str(out), "--scheduler", client.scheduler.address, "--format", "csv",
+        "--resume", "--quiet"])
+    assert "(0 tasks computed, 4 resumed)" in resumed.stdout
+    assert (out / "routes.csv").read_text() == before
 
 
 def test_example_legal_loads_against_statics(client: Any, tmp_path: Path) -> None:

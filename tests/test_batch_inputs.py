@@ -254,6 +254,8 @@ def _two(folder: Path) -> Path:
     ([str(EXAMPLES / "harrow-county.toml"), "--job", "missing.toml"], "job file not found"),
     ([str(EXAMPLES / "harrow-county.toml"), "--job", "{unknown_kind}"],
      "unknown job kind 'rating'"),
+    (["{no_model}", "--job", str(EXAMPLES / "legal-loads.toml")],
+     "row 3: the row has no model"),
     ([str(EXAMPLES / "harrow-county.toml"), "--job", str(EXAMPLES / "legal-loads.toml"),
       "--scheduler", "no address"], "is not a scheduler address"),
     ([str(EXAMPLES / "harrow-county.toml"), "--job", str(EXAMPLES / "legal-loads.toml"),
@@ -262,9 +264,10 @@ def _two(folder: Path) -> Path:
 def test_bad_input_is_one_line_and_exit_1(tmp_path: Path, monkeypatch: pytest.MonkeyPatch,
                                           arguments: list[str], message: str) -> None:
     monkeypatch.setattr(engine, "CONNECT_TIMEOUT", 0.5)  # nothing listens on port 1
-    job = tmp_path / "unknown-kind.toml"
-    job.write_text('[[run]]\nkind = "rating"\n')
-    arguments = [str(job) if a == "{unknown_kind}" else a for a in arguments]
+    made = {"{unknown_kind}": tmp_path / "unknown-kind.toml", "{no_model}": tmp_path / "no.csv"}
+    made["{unknown_kind}"].write_text('[[run]]\nkind = "rating"\n')
+    made["{no_model}"].write_text("id,model\nB-1,b1.toml\nB-2,\n")
+    arguments = [str(made.get(a, a)) for a in arguments]
     result = CliRunner().invoke(main, ["batch", *arguments, "--out", str(tmp_path / "out")])
     assert result.exit_code == 1
     assert message in result.stderr
