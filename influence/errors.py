@@ -24,3 +24,7 @@ class MechanismError(InfluenceError, ValueError):
 
 class LocationError(InfluenceError, ValueError):
     """A requested section, node or chainage is not on the structure."""
+
+
+class BatchError(InfluenceError, ValueError):
+    """An inventory, route or job file is invalid, or a batch run cannot start."""
