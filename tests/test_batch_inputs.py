@@ -8,9 +8,6 @@ has the ratio 1 wherever it has an effect; a unit load's reactions sum to the lo
 
 from __future__ import annotations
 
-import sys
-import types
-from dataclasses import dataclass
 from pathlib import Path
 
 import pytest
@@ -19,7 +16,6 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from influence.batch import engine
-from influence.batch.assessment_kinds import ratio_of_rating
 from influence.batch.comparison import Comparison, check
 from influence.batch.envelope_kind import EnvelopeSettings
 from influence.batch.govern_kind import GovernSettings
@@ -34,7 +30,6 @@ from influence.batch.task import run_task
 from influence.cli import main
 from influence.errors import BatchError
 from tests.batch_inventory import GOOD, write_inventory
-from vehicles.search.placement import Placement
 
 EXAMPLES = Path(__file__).resolve().parent.parent / "examples" / "batch"
 EXACT = 1e-12
@@ -116,54 +111,75 @@ def test_bad_jobs_are_one_line_errors(tmp_path: Path, text: str, problem: str) -
     assert caught.value.problem == problem
 
 
-@pytest.mark.parametrize("kind", ["rate", "permit", "fatigue"])
-def test_an_assessment_kind_missing_from_the_installation_is_refused_when_read(
-        tmp_path: Path, kind: str, monkeypatch: pytest.MonkeyPatch) -> None:
-    from influence.batch import assessment_kinds
+ROOT_EXAMPLES = EXAMPLES.parent
 
-    monkeypatch.setattr(assessment_kinds, "library_function", lambda module, name: None)
+
+def _one_structure(tmp_path: Path, model: str, job: str):  # type: ignore[no-untyped-def]
+    """Run one job table on one example model file, as a worker would."""
+    inventory = tmp_path / "inventory.toml"
+    inventory.write_text(f'[[structures]]\nid = "X-1"\nmodel = "{ROOT_EXAMPLES / model}"\n')
     path = tmp_path / "job.toml"
-    path.write_text(f'[[run]]\nkind = "{kind}"\nvehicles = ["Type 3"]\n')
-    with pytest.raises(BatchError, match="not available in this installation"):
-        read_job(path)
-
-
-@dataclass(frozen=True)
-class _Rated:
-    """What the rating layer is to return for each value (see influence.batch.assessment_kinds)."""
-
-    section: str
-    chainage: float
-    response: str
-    vehicle: str
-    level: str
-    value: float
-    unit: str
-    placement: Placement | None
-
-
-def test_the_rate_adapter_turns_the_library_result_into_rows(
-        tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
-    calls = []
-
-    def rate(model_file, analysis, models, **settings):  # type: ignore[no-untyped-def]
-        calls.append((model_file.model.units, [m.name for m in models], settings))
-        return [_Rated("5", 5.0, "moment", "Type 3", "legal", 0.8, "-", None),
-                _Rated("5", 5.0, "moment", "Type 3", "operating", 1.6, "-", None)]
-
-    module = types.ModuleType("influence.rating.run")
-    module.rate = rate  # type: ignore[attr-defined]
-    monkeypatch.setitem(sys.modules, "influence.rating.run", module)
-    folder = tmp_path / "fenn"
-    inventory = read_inventory(write_inventory(folder, GOOD[:1]))
-    path = tmp_path / "job.toml"
-    path.write_text('[[run]]\nkind = "rate"\nvehicles = ["Type 3"]\nedition = "MBE 3rd"\n')
+    path.write_text(job)
     (run,) = read_job(path).runs
-    rows = run_task(inventory.structures[0], run)
-    assert calls == [("kip-ft", ["Type 3"], {"edition": "MBE 3rd"})]
-    assert [(r.level, r.value, r.ratio, r.status, r.kind) for r in rows] == [
-        ("legal", 0.8, ratio_of_rating(0.8), "fail", "rate"),
-        ("operating", 1.6, ratio_of_rating(1.6), "pass", "rate")]
+    return run_task(read_inventory(inventory).structures[0], run)
+
+
+def test_the_rate_adapter_gives_the_library_ratings_row_by_row(tmp_path: Path) -> None:
+    """Batch rows equal rating the structure alone with influence.rating.run.rate."""
+    from influence.rating.run import rate
+
+    rows = _one_structure(tmp_path, "pellow-brook-bridge.toml",
+                          '[[run]]\nkind = "rate"\nvehicles = ["Type 3"]\nlevels = ["legal"]\n')
+    alone = rate(str(ROOT_EXAMPLES / "pellow-brook-bridge.toml"), vehicles=["Type 3"],
+                 levels=["legal"])
+    rated = [r for r in rows if r.value is not None]
+    assert len(rated) == len(alone.ratings) > 0
+    for row, rating in zip(rated, alone.ratings, strict=True):
+        assert row.value == pytest.approx(rating.rating_factor, rel=EXACT)
+        assert row.status == ("pass" if rating.rating_factor >= 1.0 else "fail")
+        assert row.lead_position == rating.live.placement.lead_position
+    assert len(rows) - len(rated) == len(alone.not_rated)
+
+
+def test_the_permit_adapter_gives_each_sections_verdict(tmp_path: Path) -> None:
+    from influence.rating.permit_check import check_permit
+
+    vehicle = ROOT_EXAMPLES / "vehicles" / "crane-carrier-5-axle.toml"
+    rows = _one_structure(tmp_path, "pellow-brook-bridge.toml",
+                          f'[[run]]\nkind = "permit"\nvehicles = ["{vehicle}"]\n'
+                          'escorted = true\n')
+    alone = check_permit(str(ROOT_EXAMPLES / "pellow-brook-bridge.toml"), str(vehicle),
+                         escorted=True)
+    assert [r.value for r in rows] == pytest.approx([v.rating_factor for v in alone.sections])
+    assert [r.status == "pass" for r in rows] == [v.passes for v in alone.sections]
+
+
+def test_the_fatigue_adapter_gives_the_damage_of_every_detail(tmp_path: Path) -> None:
+    from influence.fatigue.run import fatigue
+
+    rows = _one_structure(tmp_path, "wrenfield-girder.toml",
+                          '[[run]]\nkind = "fatigue"\nvehicles = ["HL-93 fatigue"]\n')
+    alone = fatigue(str(ROOT_EXAMPLES / "wrenfield-girder.toml"), vehicle="HL-93 fatigue")
+    assert [r.section for r in rows] == [d.detail.name for d in alone.details]
+    for row, detail in zip(rows, alone.details, strict=True):
+        life = detail.life
+        damage = life.damage_per_year * max(life.design_life_years - life.age_years, 0.0)
+        assert row.value == pytest.approx(damage, rel=EXACT)
+
+
+@pytest.mark.parametrize(("text", "problem"), [
+    ('[[run]]\nkind = "rate"\nadtt = -3\n', "adtt = -3 is negative"),
+    ('[[run]]\nkind = "permit"\ntrips = "daily"\n', "trips = 'daily'"),
+    ('[[run]]\nkind = "fatigue"\nspectrum = "nowhere.csv"\n', "spectrum file not found"),
+    ('[[run]]\nkind = "rate"\nedition = "MBE 3rd"\n', "unknown key 'edition'"),
+])
+def test_bad_assessment_runs_are_refused_when_the_job_is_read(tmp_path: Path, text: str,
+                                                            problem: str) -> None:
+    path = tmp_path / "job.toml"
+    path.write_text(text)
+    with pytest.raises(BatchError) as caught:
+        read_job(path)
+    assert caught.value.problem == problem
 
 
 def test_a_vehicle_checked_against_itself_has_the_ratio_one_where_it_acts(

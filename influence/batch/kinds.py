@@ -24,6 +24,9 @@ from pathlib import Path
 from typing import Any
 
 from influence.batch.assessment_kinds import (
+    FATIGUE_KEYS,
+    PERMIT_KEYS,
+    RATE_KEYS,
     fatigue_rows,
     permit_rows,
     rate_rows,
@@ -51,20 +54,23 @@ class JobKind:
         read: the settings reader.
         run: the adapter.
         keys: the run-table keys the reader takes (None: any key, passed to the library).
+        loads_vehicles: the task loads the run's load models for the adapter (False: the
+            library function chooses and loads its own, as rating and fatigue do).
     """
 
     name: str
     read: SettingsReader
     run: Adapter
     keys: tuple[str, ...] | None
+    loads_vehicles: bool = True
 
 
 KINDS: dict[str, JobKind] = {kind.name: kind for kind in (
     JobKind("envelope", read_envelope_settings, envelope_rows, ENVELOPE_KEYS),
     JobKind("govern", read_govern_settings, govern_rows, GOVERN_KEYS),
-    JobKind("rate", read_rate_settings, rate_rows, None),
-    JobKind("permit", read_permit_settings, permit_rows, None),
-    JobKind("fatigue", read_fatigue_settings, fatigue_rows, None),
+    JobKind("rate", read_rate_settings, rate_rows, RATE_KEYS, loads_vehicles=False),
+    JobKind("permit", read_permit_settings, permit_rows, PERMIT_KEYS, loads_vehicles=False),
+    JobKind("fatigue", read_fatigue_settings, fatigue_rows, FATIGUE_KEYS, loads_vehicles=False),
 )}
 
 

@@ -87,8 +87,11 @@ class Subject:
         structure: the inventory row.
         model_file: everything its model file says.
         analysis: the factorised model.
-        models: the run's load models in the structure's units.
+        models: the run's load models in the structure's units (none for the kinds that choose
+            their own: rate, permit, fatigue).
         notes: remarks on those load models (unit conversions, adjustments).
+        vehicles: the run's vehicles as the job names them (library names or vehicle files,
+            resolved against the job's folder); empty when the job names none.
     """
 
     structure: Structure
@@ -96,6 +99,7 @@ class Subject:
     analysis: Analysis
     models: tuple[LoadModel, ...]
     notes: tuple[str, ...] = ()
+    vehicles: tuple[str, ...] = ()
 
     @property
     def units(self) -> str:

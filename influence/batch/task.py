@@ -26,6 +26,7 @@ from influence.design.loading import vehicles_for
 from influence.errors import BatchError, InfluenceError
 from influence.model.reader import read_model_file
 from vehicles.errors import VehicleError
+from vehicles.loadmodel import LoadModel
 
 
 def run_task(structure: Structure, run: Run) -> tuple[ResultRow, ...]:
@@ -35,14 +36,17 @@ def run_task(structure: Structure, run: Run) -> tuple[ResultRow, ...]:
         model_file = read_model_file(structure.model_path)
         basis = model_file.basis
         names = run.vehicles or basis.live.vehicles
-        if not names:
-            raise BatchError("no vehicles", source=model_file.source, item=run.name,
-                             fix="give vehicles in the job's run or live_load.vehicles in "
-                                 "the model file")
-        models, notes = vehicles_for(names, model_file.model.units,
-                                     {**basis.live.adjust, **dict(run.adjust)})
+        models: list[LoadModel] = []
+        notes: list[str] = []
+        if run.kind.loads_vehicles:
+            if not names:
+                raise BatchError("no vehicles", source=model_file.source, item=run.name,
+                                 fix="give vehicles in the job's run or live_load.vehicles in "
+                                     "the model file")
+            models, notes = vehicles_for(names, model_file.model.units,
+                                         {**basis.live.adjust, **dict(run.adjust)})
         subject = Subject(structure, model_file, analyse_model(model_file.model),
-                          tuple(models), tuple(notes))
+                          tuple(models), tuple(notes), tuple(run.vehicles))
         rows = run.kind.run(run.settings, subject)
     except (InfluenceError, VehicleError) as error:
         return (error_row(structure, run.name, kind, str(error)),)
