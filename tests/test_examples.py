@@ -63,7 +63,8 @@ def test_example_vehicles_read(path: Path) -> None:
 
 def test_crane_pair_on_a_simple_span_follows_the_two_load_rule() -> None:
     # AISC Manual, moving loads, "two equal concentrated loads" (case number from memory;
-    # ../shared/REFERENCES.md 2.1): for a spacing a < 0.586 L the largest moment is
+    # confirmed in substance by T. G. Hicks, Civil Engineering Formulas, ch. 2, p. 64, and
+    # re-derived: computed): for a spacing a < 0.586 L the largest moment is
     # (P/2L)(L - a/2)^2. Here on a 40 ft simple span, P = 31.5 kip x 1.25 impact, a = 11.5 ft.
     from influence.model.beamform import simple_beam
     from vehicles.library.catalog import load_model

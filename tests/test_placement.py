@@ -1,8 +1,9 @@
 """The governing search: cases and scopes, directions, distinct peaks, ranged gaps, jumps.
 
 Closed forms: the two-equal-span support moment M_B = -ab(L + a)/(4L^2), extreme ordinate
--L/(6 sqrt 3) at a = L/sqrt 3 in each span (piping-designer / AISC two-span case; REFERENCES.md
-section 1, confirmed + computed); simple-span lines of Fanous (ISU).
+-L/(6 sqrt 3) at a = L/sqrt 3 in each span (AISC *Steel Construction Manual*, beam diagrams, two
+equal spans with a concentrated load at any point, re-derived by the three-moment equation:
+computed); simple-span lines by statics (R. C. Hibbeler, *Structural Analysis*, ch. 6).
 """
 
 from __future__ import annotations
