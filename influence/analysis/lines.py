@@ -162,7 +162,13 @@ class Analysis:
                        zip(in_member, self._leg_terms, strict=True)]
         pieces = [self._pieces(e, [b[i] for b in in_member], [c[i] for c in in_chainage])
                   for i, e in enumerate(extractions)]
-        batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned()
+        # the size of the terms each line is a sum of: what its round-off is relative to
+        magnitudes = np.zeros(len(extractions))
+        for (used, loads, _), leg in zip(self._leg_terms, self.path.legs, strict=True):
+            reach = np.abs(loads) * leg.length ** np.arange(loads.shape[1])
+            magnitudes = np.maximum(magnitudes, (np.abs(weights[:, used]) @ reach).max(axis=1))
+        batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned(
+            magnitudes)
         # the interior region of a moment: a uniform load on the whole path hogs there
         positive, negative = batch.areas()
         hogging = positive + negative < -NOISE * batch.scales * batch.extents
