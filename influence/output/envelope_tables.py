@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import Any
 
 from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
+from influence.design.loading import live_load_scale
 from influence.output.conventions import effect_unit, header_lines
 from influence.output.governing_tables import placement_fields
 from influence.output.tables import Table
@@ -22,9 +23,7 @@ def envelope_header(envelope: Envelope, title: str) -> list[str]:
     lines.append("Load models: " + "; ".join(
         f"{m.name} ({m.standard}{', ' + m.clause if m.clause else ''})" if m.standard else m.name
         for m in envelope.models))
-    lines.append(f"Live load per girder line = one lane's effect x distribution "
-                 f"{live.distribution:g} x multiple presence {live.multiple_presence:g}; "
-                 "dynamic load allowance as each load model's cases give it.")
+    lines.append(live_load_scale(live)[1])
     lines.extend(envelope.notes)
     return lines
 
