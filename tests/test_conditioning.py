@@ -11,7 +11,8 @@ facts checked are the trade's own:
   (no horizontal restraint, two hinges in one span) must be reported whatever their stiffness.
 The numerical facts are checked against what the solver states (influence.analysis.solve):
 reactions balance to EQUILIBRIUM_LIMIT or the model is refused with a ConditioningError naming
-the contrast, and never refused where EI changes only between spans; reciprocity to 1e-9.
+the contrast; girders of ordinary proportions are never refused and balance to 1e-9 whatever
+their springs; reciprocity holds to 1e-9.
 """
 
 from __future__ import annotations
@@ -32,13 +33,15 @@ READING = 1e-10
 RECIPROCITY = 1e-9
 """Maxwell-Betti agreement the solver states, relative to the lines' largest ordinates [-]."""
 ORDINARY = 1e-9
-"""Equilibrium reached where EI changes only between spans, whatever the springs [-]."""
+"""Equilibrium reached by girders of ordinary proportions (EI within 1e4 from span to span,
+spans of 2 to 40 m), whatever their springs (1 to 1e12) [-]."""
 PLENTY = settings(max_examples=1000, deadline=None, derandomize=True,
                   suppress_health_check=[HealthCheck.too_slow])
 """Thousands of girders in all (about a minute on a CI machine); derandomised so that every run
 checks the same girders."""
 
 stiffness = st.floats(3.0, 11.0).map(lambda p: 10.0**p)  # EI [kN m^2], 1e3 to 1e11
+ordinary_stiffness = st.floats(3.0, 7.0).map(lambda p: 10.0**p)  # EI ratios up to 1e4
 near_an_end = st.one_of(st.floats(0.0005, 0.01), st.floats(0.99, 0.9995))
 
 
@@ -54,8 +57,9 @@ def span_EI(draw, span: float):  # type: ignore[no-untyped-def]
 @st.composite
 def girders(draw, stepped: bool = True) -> Model:  # type: ignore[no-untyped-def]
     count = draw(st.integers(1, 4))
-    spans = draw(st.lists(st.floats(1.0, 40.0), min_size=count, max_size=count))
-    EI = [draw(span_EI(span)) if stepped else draw(stiffness) for span in spans]
+    spans = draw(st.lists(st.floats(1.0 if stepped else 2.0, 40.0), min_size=count,
+                          max_size=count))
+    EI = [draw(span_EI(span)) if stepped else draw(ordinary_stiffness) for span in spans]
     supports: list[str | Support] = ["pinned"]
     for _ in range(count):
         kind = draw(st.sampled_from(["roller", "roller", "spring", "fixed"]))
@@ -76,13 +80,16 @@ def analysed(model: Model) -> Analysis | None:
 
 
 def measured_residual(analysis: Analysis, fractions: list[float]) -> float:
-    """|sum of vertical reactions - 1| at the load positions, over the largest reaction."""
+    """|sum of vertical reactions - 1| at the load positions, over the largest reaction
+    ordinate."""
     model = analysis.model
     loads = np.array(fractions) * model.nodes[-1].x
     held = [n for n in model.nodes if n.support.uy != "free"]
     lines = analysis.lines([Response("reaction", n.name) for n in held])
     vertical = [line.values(loads) for line in lines]
-    largest = max(1.0, max(float(np.abs(v).max()) for v in vertical))
+    # the largest reaction ordinate anywhere (as the solver states its bound), at least 1
+    largest = max(1.0, max(max(abs(e.largest.value), abs(e.smallest.value))
+                           for e in (line.extremes() for line in lines)))
     return float(np.abs(np.sum(vertical, axis=0) - 1.0).max()) / largest
 
 
@@ -101,7 +108,7 @@ def test_reactions_balance_the_unit_load_or_the_contrast_is_refused(model, fract
 @settings(max_examples=500, deadline=None, derandomize=True,
           suppress_health_check=[HealthCheck.too_slow])
 @given(girders(stepped=False), st.lists(st.floats(0.0, 1.0), min_size=4, max_size=8))
-def test_ratios_between_spans_and_stiff_springs_are_solved_to_round_off(model, fractions) -> None:  # type: ignore[no-untyped-def]
+def test_ordinary_girders_with_any_springs_are_solved_to_round_off(model, fractions) -> None:  # type: ignore[no-untyped-def]
     analysis = analyse_model(model)
     assert measured_residual(analysis, fractions) <= ORDINARY
     assert analysis.equilibrium_residual <= ORDINARY

@@ -26,6 +26,7 @@ from tests.section_scan import axle_train, one_case
 from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadCase, LoadModel, Scope
 from vehicles.search.govern import govern
+from vehicles.search.placement import is_mirror
 from vehicles.train import Axle, Patch, Train
 
 EXACT = 1e-9
@@ -224,3 +225,21 @@ def test_one_range_with_cleared_lane_beats_every_fixed_gap():
             fixed = Train("t", (Axle(250.0), Axle(250.0, float(gap)), Patch(30.0, 8.0, 2.0)))
             other = getattr(govern(line, one_case(fixed, **case), kind="moment"), sense)
             assert sign * placement.value >= sign * other.value - 1e-9 * abs(other.value)
+
+
+@settings(max_examples=60, deadline=None)
+@given(st.lists(st.floats(5.0, 50.0), min_size=2, max_size=4),
+       st.lists(st.floats(1.0, 6.0), min_size=3, max_size=3))
+def test_top_positions_are_distinct_on_a_symmetric_line(loads, gaps):
+    """On the symmetric support-moment line of two equal spans every forward placement has a
+    reverse mirror image of the same value: --top lists each placement once, most adverse
+    first, and the first is still the governing one."""
+    train = axle_train(loads, gaps[: len(loads) - 1])
+    found = govern(SUPPORT_MOMENT, one_case(train), kind="moment", top=5)
+    listed = found.top_min
+    assert listed and listed[0].value == pytest.approx(found.min.value, rel=EXACT)
+    tolerance = 1e-9 * 2 * L
+    for i, first in enumerate(listed):
+        for second in listed[i + 1:]:
+            assert not is_mirror(first, second, tolerance)
+    assert [p.value for p in listed] == sorted(p.value for p in listed)

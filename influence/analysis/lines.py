@@ -32,6 +32,8 @@ from influence.model.structure import Member, Model
 from piecewise import Batch, Extremes, Piecewise
 from piecewise.tolerances import NOISE, POSITION
 
+READINGS = 17
+"""Positions across each piece at which :attr:`Analysis.equilibrium_residual` reads the lines."""
 EQUILIBRIUM_LIMIT = 1e-6
 """The largest equilibrium residual of the reaction lines an analysis may have [-], relative to
 the largest reaction ordinate (see :attr:`Analysis.equilibrium_residual`)."""
@@ -217,8 +219,11 @@ class Analysis:
             total += np.array(shifted).T
         total[0] -= 1.0
         found = Piecewise(breaks, total).extremes()
-        # read the sum where it peaks from the lines themselves, as every output reads them
-        at = np.concatenate([breaks, [found.largest.at, found.smallest.at]])
+        # read the sum from the lines themselves, as every output reads them: where the summed
+        # cubic peaks, at every breakpoint and across every piece (the residual is round-off,
+        # so where it peaks when read may differ a little from where the sum peaks)
+        across = (breaks[:-1, None] + np.diff(breaks)[:, None] * np.linspace(0, 1, READINGS)[None])
+        at = np.concatenate([breaks, [found.largest.at, found.smallest.at], across.ravel()])
         residual = max(float(np.abs(sum(line.values(at, side) for line in lines) - 1.0).max())
                        for side in ("left", "right"))
         largest = max(max(abs(e.largest.value), abs(e.smallest.value))

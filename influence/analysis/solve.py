@@ -24,13 +24,13 @@ Accuracy guaranteed: every analysis measures how well its vertical reaction line
 unit load (:attr:`influence.analysis.lines.Analysis.equilibrium_residual`, exact) and
 :func:`influence.analysis.lines.analyse_model` refuses a structure whose residual exceeds
 :data:`influence.analysis.lines.EQUILIBRIUM_LIMIT` (1e-6 of the largest reaction ordinate) with a
-one-line :class:`~influence.errors.ConditioningError`. Girders of ordinary proportions, and those
-with EI ratios of 1e8 between spans or springs of 1e12 beside an EI of 1e3, reach 1e-9 or better;
-only a very short, very stiff piece beside a very soft one (a step of EI by 1e6 or more a few
-millimetres from a support) can reach the limit, since its stiffness then differs from its
-neighbours' by more than double precision resolves. :attr:`Structure.condition` gives the
-condition number of S K_ff S. Maxwell-Betti reciprocity of displacement lines holds to 1e-9 of
-their largest ordinate.
+one-line :class:`~influence.errors.ConditioningError`. Girders of ordinary proportions (EI within
+1e4 from span to span), with springs up to 1e12 beside an EI of 1e3, reach 1e-11; only a short,
+very stiff piece beside a very soft one (an EI step of 1e6 or more a few centimetres from a
+support, or a 1 m span 1e8 times stiffer than its neighbour) can reach the limit, since its
+stiffness then differs from its neighbours' by more than double precision resolves.
+:attr:`Structure.condition` gives the condition number of S K_ff S. Maxwell-Betti reciprocity of
+displacement lines holds to 1e-9 of their largest ordinate.
 
 References: W. McGuire, R. H. Gallagher and R. D. Ziemian, "Matrix Structural Analysis", 2nd ed.,
 2000, ch. 4 (direct stiffness method) and 7.2 (member end releases by condensation);
