@@ -68,52 +68,53 @@ class EnvelopeRun:
 
 
 @dataclass(frozen=True)
-class GoverningRun:
-    """The governing positions at one section of a model file.
+class LiveLoadRun:
+    """What a run on a model file read and what it did to the live load.
 
     Attributes:
-        read: the model file as read.
-        analysis: the factorised structure.
-        result: the governing search (values times ``live_scale``).
-        models: the load models used, in the structure's units.
+        read: the model file as read (structure, design basis, project).
         notes: unit conversions and adjustments of the load models.
         live_scale: what one lane's effect was multiplied by [-].
         live_note: the sentence that says so.
     """
 
     read: ModelFile
-    analysis: Analysis
-    result: GoverningResult
-    models: tuple[LoadModel, ...]
     notes: tuple[str, ...]
     live_scale: float
     live_note: str
 
 
 @dataclass(frozen=True)
-class SweepRun:
+class GoverningRun(LiveLoadRun):
+    """The governing positions at one section of a model file.
+
+    Attributes:
+        analysis: the factorised structure.
+        result: the governing search (values times ``live_scale``).
+        models: the load models used, in the structure's units.
+    """
+
+    analysis: Analysis
+    result: GoverningResult
+    models: tuple[LoadModel, ...]
+
+
+@dataclass(frozen=True)
+class SweepRun(LiveLoadRun):
     """The sweeps of one load model at one section of a model file.
 
     Attributes:
-        read: the model file as read.
         line: the influence line swept.
         model: the load model with the swept cases only.
         sweeps: one per case and direction (values times ``live_scale``).
         placement: where the swept cases govern in the swept sense (None where they give no
             effect of that sign), for drawing.
-        notes: unit conversions and adjustments of the load model.
-        live_scale: what one lane's effect was multiplied by [-].
-        live_note: the sentence that says so.
     """
 
-    read: ModelFile
     line: InfluenceLine
     model: LoadModel
     sweeps: tuple[Sweep, ...]
     placement: Placement | None
-    notes: tuple[str, ...]
-    live_scale: float
-    live_note: str
 
     @property
     def title(self) -> str:
@@ -193,7 +194,8 @@ def governing_from_file(path: str | Path, response: Response, *,
     analysis = analyse_model(read.model)
     result = governing(analysis, response, models, top=top, concurrent_with=concurrent_with,
                        live_scale=scale)
-    return GoverningRun(read, analysis, result, tuple(models), tuple(notes), scale, note)
+    return GoverningRun(read=read, notes=tuple(notes), live_scale=scale, live_note=note,
+                        analysis=analysis, result=result, models=tuple(models))
 
 
 def placement_sweeps(run: GoverningRun) -> list[Sweep]:
@@ -255,7 +257,8 @@ def sweeps_from_file(path: str | Path, response: Response, vehicle: str, *,
                   section=line.section_chainage)
     extreme = best.max if sense == "max" else best.min
     placement = None if extreme is None else replace(extreme, value=extreme.value * scale)
-    return SweepRun(read, line, swept, sweeps, placement, tuple(notes), scale, note)
+    return SweepRun(read=read, notes=tuple(notes), live_scale=scale, live_note=note, line=line,
+                    model=swept, sweeps=sweeps, placement=placement)
 
 
 def _scaled(found: Sweep, scale: float) -> Sweep:
