@@ -138,6 +138,19 @@ def envelope_from_file(path: str | Path, *, vehicles: Sequence[str] = (),
 
     Raises:
         ModelError: both ``step`` and ``per_span`` given, or no vehicle anywhere.
+
+    Example (the bundled overpass's reactions, per girder line; sections and divisions together
+    are refused):
+        >>> overpass = Path(__file__).parents[2] / "examples" / "overpass.toml"
+        >>> run = envelope_from_file(overpass, responses=("reaction",))
+        >>> entries = run.envelope.entries
+        >>> [e.section.label for e in entries], round(entries[1].live_max, 2)
+        (['A1', 'P1', 'P2', 'A2'], 519.76)
+        >>> try:
+        ...     envelope_from_file(overpass, step=1.0, per_span=4)
+        ... except ModelError as error:
+        ...     print(error.fix)
+        give --step or --per-span, not both
     """
     if step is not None and per_span is not None:
         raise ModelError("both a section step and divisions per span are given",
@@ -187,6 +200,14 @@ def governing_from_file(path: str | Path, response: Response, *,
         top: distinct positions to list for each sense.
         concurrent_with: other responses under the same loads.
         per_lane: leave out the file's distribution and multiple presence factors.
+
+    Example (the reaction over pier P1 of the bundled overpass: the truck pair governs; every
+    case of HL-93 keeps its own row):
+        >>> overpass = Path(__file__).parents[2] / "examples" / "overpass.toml"
+        >>> run = governing_from_file(overpass, Response("reaction", "P1"))
+        >>> best = run.result.governing.max
+        >>> round(best.value, 2), best.case, len(run.result.by_case), run.live_scale
+        (519.76, '90% truck pair + lane', 3, 0.62)
     """
     read = read_model_file(path)
     models, notes = model_vehicles(vehicles, read.model, read.basis, adjust)
@@ -236,6 +257,19 @@ def sweeps_from_file(path: str | Path, response: Response, vehicle: str, *,
 
     Raises:
         VehicleError: the load model has no case of that name.
+
+    Example (the tandem over the end support A1 of the bundled overpass, per girder line: its
+    largest value is where the tandem governs; a case the model lacks is refused):
+        >>> overpass = Path(__file__).parents[2] / "examples" / "overpass.toml"
+        >>> run = sweeps_from_file(overpass, Response("reaction", "A1"), "HL-93",
+        ...                        case="design tandem + lane", direction="forward")
+        >>> round(float(max(run.sweeps[0].values)), 2), round(run.placement.value, 2)
+        (239.17, 239.17)
+        >>> try:
+        ...     sweeps_from_file(overpass, Response("reaction", "A1"), "HL-93", case="crane")
+        ... except VehicleError as error:
+        ...     print(error.fix)
+        cases: design truck + lane, design tandem + lane, 90% truck pair + lane
     """
     if direction not in DIRECTIONS:
         raise VehicleError(f"direction {direction!r}", item="direction",
