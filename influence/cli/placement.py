@@ -58,7 +58,8 @@ PER_LANE_HELP = ("One lane's values: leave out the model file's live_load distri
 @click.option("--adjust", multiple=True, metavar="NAME=VALUE",
               help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
 @click.option("--top", type=int, default=1, show_default=True,
-              help="How many distinct governing positions to list for each sense.")
+              help="How many distinct governing positions to list for each sense (a placement and "
+                   "its mirror image on a symmetric line count once).")
 @click.option("--concurrent", "concurrent_text", multiple=True,
               help="Another response under the same loads: RESPONSE@LOCATION[:left|right].")
 @click.option("--per-lane", is_flag=True, help=PER_LANE_HELP)
