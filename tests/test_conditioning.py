@@ -99,10 +99,11 @@ def test_reactions_balance_the_unit_load_or_the_contrast_is_refused(model, fract
     analysis = analysed(model)  # never a mechanism: a pinned end and a second restraint
     if analysis is None:
         return
-    residual = measured_residual(analysis, fractions)
-    assert residual <= EQUILIBRIUM_LIMIT + READING
-    # the residual the analysis measures of itself is at least what any load position shows
-    assert residual <= 2 * analysis.equilibrium_residual + READING
+    # accepted: the residual the analysis measured of itself is within the limit ...
+    assert analysis.equilibrium_residual <= EQUILIBRIUM_LIMIT
+    # ... and no load position shows more than it, up to the round-off of reading the lines
+    # (a residual this small is itself round-off, so where it peaks shifts a little)
+    assert measured_residual(analysis, fractions) <= 2 * analysis.equilibrium_residual + READING
 
 
 @settings(max_examples=500, deadline=None, derandomize=True,
