@@ -22,6 +22,11 @@ class MechanismError(InfluenceError, ValueError):
     """The structure can move without straining: a missing support or too many releases."""
 
 
+class ConditioningError(InfluenceError, ValueError):
+    """The stiffness contrast of a structure is too large to solve to the accuracy the tool
+    guarantees (a very short, very stiff piece beside a very soft one)."""
+
+
 class LocationError(InfluenceError, ValueError):
     """A requested section, node or chainage is not on the structure."""
 

@@ -159,10 +159,17 @@ class Batch:
         largest = reach.max(axis=0) if reach.size else np.zeros(0)
         return _segment_max(largest, self.piece_offsets, self.count)
 
-    def cleaned(self) -> Batch:
-        """Terms below :data:`~piecewise.tolerances.NOISE` of their function's scale set to 0."""
+    def cleaned(self, magnitudes: np.ndarray | None = None) -> Batch:
+        """Terms below :data:`~piecewise.tolerances.NOISE` of their function's scale set to 0.
+
+        Args:
+            magnitudes: for each function, the size of the terms it was summed from, where the
+                caller knows it (a line that cancels to nothing is round-off of those terms, not
+                of itself); the larger of it and the function's own scale is used.
+        """
         reach = np.abs(self.coeffs) * powers(self.widths, self.degree + 1)
-        return self.with_coeffs(np.where(reach < NOISE * self.scales[self.piece_owner], 0.0,
+        scales = self.scales if magnitudes is None else np.maximum(self.scales, magnitudes)
+        return self.with_coeffs(np.where(reach < NOISE * scales[self.piece_owner], 0.0,
                                          self.coeffs))
 
     def snapped(self, owner: np.ndarray, x: np.ndarray) -> np.ndarray:

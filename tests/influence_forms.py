@@ -1,17 +1,20 @@
 """Influence lines from textbook closed forms, as scipy PPoly, for the placement tests.
 
 Built here from the formulas themselves (not from the ``influence`` package), so that the
-placement code is checked against something outside it. Sign conventions as REFERENCES.md:
+placement code is checked against something outside it. Sign conventions as the README's:
 unit load downward, reactions positive upward, sagging moment positive, shear at section c =
 sum of the vertical forces left of c.
 
-Sources:
-- simple beam R, V, M: Fanous, "Introductory Problems in Structural Analysis: Influence Lines"
-  (ISU); REFERENCES.md section 1.
-- continuous beams: the three-moment equation (Clapeyron), whose two-equal-span case reproduces
-  the piping-designer / AISC "two span continuous beam, concentrated load at any point" formulas
-  of REFERENCES.md section 1 (checked in tests/validation/test_two_span_formulas.py).
-- truss panel shear: Hicks, Handbook of Civil Engineering Calculations 2nd ed., pp. 1.72-1.73.
+Sources (listed in full in docs/references.md):
+- simple beam R, V, M: statics of a simple beam, as R. C. Hibbeler, *Structural Analysis*,
+  ch. 6 (influence lines for statically determinate structures) derives them.
+- continuous beams: the three-moment equation (Clapeyron; A. Kassimali, *Structural Analysis*,
+  the chapter on the three-moment equation / force method), whose two-equal-span case gives the
+  AISC *Steel Construction Manual* beam diagram "continuous beam, two equal spans, concentrated
+  load at any point" (case number from memory, unconfirmed; the formulas are re-derived in
+  tests/validation/test_two_span_formulas.py: computed).
+- truss panel shear: T. G. Hicks, *Handbook of Civil Engineering Calculations*, 2nd ed.,
+  McGraw-Hill, 2007, pp. 1.72-1.73.
 """
 
 from __future__ import annotations

@@ -1,8 +1,9 @@
 """Regression cases that catch shortcuts in moving-load searches (not validation).
 
-From the project's notes for test design (REFERENCES.md, "Notes for test design" 1): an exact
-search must consider subsets of axles on the span, not only Barre's placement of the whole
-train. Expected values are closed forms (one axle at midspan: P L / 4).
+An exact search must consider subsets of axles on the span, not only Barre's placement of the
+whole train (Barre's rule holds for the axles then on the span: T. G. Hicks, *Civil Engineering
+Formulas*, ch. 2; trying every group of axles on the span is common practice). Expected values are
+closed forms (one axle at midspan: P L / 4), computed.
 """
 
 from __future__ import annotations

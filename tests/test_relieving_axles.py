@@ -1,6 +1,6 @@
 """Cases that neglect relieving axles (AASHTO LRFD 3.6.1.3.1: axles that do not contribute to the
-extreme force effect under consideration are neglected; REFERENCES.md marks that part of the
-clause as recalled from memory).
+extreme force effect under consideration are neglected; that part of the clause is recalled
+from memory, unconfirmed).
 
 Hand calculation on two equal continuous spans L (tests/influence_forms.py builds the line from the
 three-moment equation), moment at the middle of span 2:

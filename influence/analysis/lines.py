@@ -26,11 +26,18 @@ import numpy as np
 from influence.analysis.responses import Extraction, Response, resolve_many
 from influence.analysis.singularity import TERMS, substitute
 from influence.analysis.solve import Structure, analyse
+from influence.errors import ConditioningError
 from influence.model.path import PathGeometry, trace
-from influence.model.structure import Model
+from influence.model.structure import Member, Model
 from piecewise import Batch, Extremes, Piecewise
 from piecewise.polynomial import taylor_shift
 from piecewise.tolerances import NOISE, POSITION
+
+READINGS = 17
+"""Positions across each piece at which :attr:`Analysis.equilibrium_residual` reads the lines."""
+EQUILIBRIUM_LIMIT = 1e-6
+"""The largest equilibrium residual of the reaction lines an analysis may have [-], relative to
+the largest reaction ordinate (see :attr:`Analysis.equilibrium_residual`)."""
 
 
 @dataclass(frozen=True)
@@ -167,7 +174,13 @@ class Analysis:
             rows = taylor_shift(polys, offsets) * scales ** np.arange(TERMS)[:, None]
             for column, (line, slot, _, _, _) in enumerate(pending):
                 pieces[line][1][:, slot] = rows[:, column]
-        batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned()
+        # the size of the terms each line is a sum of: what its round-off is relative to
+        magnitudes = np.zeros(len(extractions))
+        for (used, loads, _), leg in zip(self._leg_terms, self.path.legs, strict=True):
+            reach = np.abs(loads) * leg.length ** np.arange(loads.shape[1])
+            magnitudes = np.maximum(magnitudes, (np.abs(weights[:, used]) @ reach).max(axis=1))
+        batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned(
+            magnitudes)
         # the interior region of a moment: a uniform load on the whole path hogs there
         positive, negative = batch.areas()
         hogging = positive + negative < -NOISE * batch.scales * batch.extents
@@ -183,6 +196,50 @@ class Analysis:
 
     def line(self, response: Response) -> InfluenceLine:
         return self.lines((response,))[0]
+
+    @cached_property
+    def equilibrium_residual(self) -> float:
+        """How far the vertical reaction lines are from balancing the unit load [-].
+
+        The largest |sum of the vertical reaction lines - 1| anywhere on the path (exact: the
+        sum is a piecewise cubic, read where it peaks up to the round-off of reading the lines),
+        over the largest reaction ordinate (at least 1). Statics makes it zero; an analysis is
+        refused above :data:`EQUILIBRIUM_LIMIT` (see :mod:`influence.analysis.solve`).
+
+        Example (a three-span girder: round-off only):
+            >>> from influence.model.beamform import continuous_beam
+            >>> girder = continuous_beam([8.0, 12.0, 8.0], [1e4, 3e5, 1e4],
+            ...                          ["pinned", "roller", "roller", "fixed"])
+            >>> analyse_model(girder).equilibrium_residual < 1e-12
+            True
+        """
+        responses = [Response("reaction", node.name) for node in self.model.nodes
+                     if node.support.uy != "free"]
+        if not responses:
+            return 0.0
+        lines = self.lines(responses)
+        breaks = np.unique(np.concatenate([line.breakpoints for line in lines]))
+        middles = 0.5 * (breaks[:-1] + breaks[1:])
+        # every reaction line is a cubic between the same nodes: sum them piece by piece
+        total = np.zeros((TERMS, middles.size))
+        for line in lines:
+            piece = np.searchsorted(line.breakpoints, middles) - 1
+            shifted = [substitute(line.coefficients[p], start - line.breakpoints[p], 1.0)
+                       for p, start in zip(piece, breaks[:-1], strict=True)]
+            total += np.array(shifted).T
+        total[0] -= 1.0
+        found = Piecewise(breaks, total).extremes()
+        # read the sum from the lines themselves, as every output reads them: where the summed
+        # cubic peaks, at every breakpoint and across every piece (the residual is round-off,
+        # so where it peaks when read may differ a little from where the sum peaks)
+        across = (breaks[:-1, None] + np.diff(breaks)[:, None] * np.linspace(0, 1, READINGS)[None])
+        at = np.concatenate([breaks, [found.largest.at, found.smallest.at], across.ravel()])
+        residual = max(float(np.abs(sum(line.values(at, side) for line in lines) - 1.0).max())
+                       for side in ("left", "right"))
+        largest = max(max(abs(e.largest.value), abs(e.smallest.value))
+                      for e in (line.extremes() for line in lines))
+        return max(residual, abs(found.largest.value), abs(found.smallest.value)) / max(
+            largest, 1.0)
 
     @cached_property
     def _leg_terms(self) -> list[tuple[np.ndarray, np.ndarray, np.ndarray]]:
@@ -251,8 +308,36 @@ def _in_travel_order(pieces: list[tuple[float, float, np.ndarray]], against: boo
 
 
 def analyse_model(model: Model) -> Analysis:
-    """Trace the path and factorise the structure once."""
-    return Analysis(model, analyse(model), trace(model))
+    """Trace the path and factorise the structure once; check that it keeps statics.
+
+    Raises:
+        MechanismError: the structure can move without straining.
+        ConditioningError: its reaction lines balance the unit load only to more than
+            :data:`EQUILIBRIUM_LIMIT` of the largest reaction: the stiffness contrast is beyond
+            what double precision resolves.
+    """
+    analysis = Analysis(model, analyse(model), trace(model))
+    residual = analysis.equilibrium_residual
+    if residual > EQUILIBRIUM_LIMIT:
+        raise ConditioningError(
+            f"the stiffness contrast is too large to solve reliably: the reaction lines balance "
+            f"the unit load only to {residual:.1e} of the largest reaction "
+            f"({_contrast(model)})", source=model.source, item="stiffness",
+            fix="merge very short pieces of very different EI into their neighbours, or keep "
+                "the bending stiffness of neighbouring pieces within about 1e6 of each other")
+    return analysis
+
+
+def _contrast(model: Model) -> str:
+    """The stiffest and the softest member in bending, 12 EI / L^3, as words."""
+    def stiffness(member: Member) -> float:
+        return 12 * member.EI / model.length_of(member.name) ** 3
+
+    stiff = max(model.members, key=stiffness)
+    soft = min(model.members, key=stiffness)
+    return (f"member {stiff.name}, {model.length_of(stiff.name):.4g} long with EI "
+            f"{stiff.EI:.3g}, beside {soft.name}, {model.length_of(soft.name):.4g} long with EI "
+            f"{soft.EI:.3g}")
 
 
 def influence_line(model: Model | Analysis, response: Response) -> InfluenceLine:

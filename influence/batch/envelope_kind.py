@@ -27,8 +27,9 @@ it; no negative moment there):
     >>> axle = LoadModel("P", "one axle", "kN-m", (LoadCase("axle", Train("P", (Axle(100.0),))),))
     >>> subject = Subject(Structure("B-1", "b1.toml"), read, analyse_model(read.model), (axle,))
     >>> rows = envelope_rows(EnvelopeSettings(("moment",), per_span=2), subject)
-    >>> [(r.level, round(r.value, 9), r.lead_position) for r in rows if r.section == "5"]
-    [('max', 250.0, 5.0), ('min', 0.0, 0.0)]
+    >>> [(r.level, r.value and round(r.value, 9), r.lead_position) for r in rows
+    ...  if r.section == "5"]  # the sagging line has no negative extreme: none
+    [('max', 250.0, 5.0), ('min', None, None)]
 """
 
 from __future__ import annotations

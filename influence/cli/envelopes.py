@@ -4,76 +4,56 @@ from __future__ import annotations
 
 import sys
 from collections.abc import Callable, Iterator
-from contextlib import contextmanager
+from contextlib import ExitStack, contextmanager
+from typing import Any
 
 import click
 
-from influence.analysis.lines import Analysis, analyse_model
 from influence.cli import main
 from influence.cli.vehicles import parse_adjustments
-from influence.design.bars import count_entries, default_responses, structure_envelope
-from influence.design.envelope import (
-    ENVELOPE_CHOICES,
-    Envelope,
-)
-from influence.design.loading import vehicles_for
-from influence.design.sections import envelope_sections
-from influence.errors import ModelError
-from influence.model.basis import DesignBasis, SectionSettings
-from influence.model.reader import read_model_file
-from influence.model.structure import Model
+from influence.design.bars import default_responses
+from influence.design.envelope import ENVELOPE_CHOICES
+from influence.design.from_file import EnvelopeRun, envelope_from_file
 from influence.output.envelope_tables import deflection_table, envelope_document, envelope_table
 from influence.output.tables import render_csv, render_json, render_table
-from vehicles.loadmodel import LoadModel
 from vehicles.output.figure_files import check_figure_place
 
 
-def resolve_vehicles(names: tuple[str, ...], model: Model, basis: DesignBasis,
-                     adjust: dict[str, float]) -> tuple[list[LoadModel], list[str]]:
-    """Load models named on the command line, else in the model file, in the model's units,
-    with notes on those converted."""
-    chosen = names or basis.live.vehicles
-    if not chosen:
-        raise ModelError("no vehicles given", source=model.source, item="live load",
-                         fix="give --vehicle NAME or FILE, or live_load.vehicles in the file")
-    return vehicles_for(chosen, model.units, {**basis.live.adjust, **adjust})
+class _Bar:
+    """A progress callback drawing click's bar on the error stream (never mixed into the
+    output), opened at the first report, when the total is known; click stays silent when that
+    stream is piped, and ``quiet`` silences it always."""
+
+    def __init__(self, label: str, quiet: bool, stack: ExitStack) -> None:
+        self.label, self.quiet, self.stack = label, quiet, stack
+        self.bar: Any = None
+        self.done = 0
+
+    def __call__(self, done: int, total: int) -> None:
+        if self.bar is None:
+            self.bar = self.stack.enter_context(click.progressbar(
+                length=total, label=self.label, file=sys.stderr, hidden=self.quiet,
+                show_eta=True))
+        self.bar.update(done - self.done)
+        self.done = done
 
 
 @contextmanager
-def progress_bar(total: int, label: str, quiet: bool) -> Iterator[click.termui.ProgressBar]:  # type: ignore[type-arg]
-    """click's progress bar on the terminal's error stream (never mixed into the output); click
-    stays silent when that stream is piped, and ``quiet`` silences it always."""
-    with click.progressbar(length=total, label=label, file=sys.stderr, hidden=quiet,
-                           show_eta=True) as bar:
-        yield bar
+def progress_bar(label: str, quiet: bool) -> Iterator[Callable[[int, int], None]]:
+    """A progress callback for a library run, closed when the run ends."""
+    with ExitStack() as stack:
+        yield _Bar(label, quiet, stack)
 
 
 def run_envelope(model_file: str, vehicles: tuple[str, ...], responses: tuple[str, ...],
                  step: float | None, per_span: int | None, quiet: bool,
-                 adjust: tuple[str, ...] = ()) -> tuple[Analysis, Envelope]:
-    read = read_model_file(model_file)
-    model, basis = read.model, read.basis
-    models, notes = resolve_vehicles(vehicles, model, basis, parse_adjustments(adjust))
-    deflection_models: list[LoadModel] = []
-    if basis.live.deflection_vehicles:
-        deflection_models, more = vehicles_for(basis.live.deflection_vehicles, model.units,
-                                               basis.live.adjust)
-        notes += more + ["Deflection check with " + ", ".join(
-            m.name for m in deflection_models) + "."]
-    analysis = analyse_model(model)
-    settings = basis.sections
-    if step is not None or per_span is not None:
-        settings = SectionSettings(per_span=per_span or settings.per_span, step=step,
-                                   extra=settings.extra)
-    sections = envelope_sections(model, analysis.path, per_span=settings.per_span,
-                                 step=settings.step, extra=settings.extra)
-    kinds = responses or default_responses(model)
-    total = count_entries(model, sections, kinds)
-    with progress_bar(total, "envelopes", quiet) as bar:
-        result = structure_envelope(analysis, models, basis, kinds=kinds, sections=sections,
-                                    progress=bar.update, notes=notes,
-                                    deflection_models=deflection_models)
-    return analysis, result
+                 adjust: tuple[str, ...] = ()) -> EnvelopeRun:
+    if step is not None and per_span is not None:
+        raise click.UsageError("give --step or --per-span, not both")
+    with progress_bar("envelopes", quiet) as report:
+        return envelope_from_file(model_file, vehicles=vehicles, responses=responses, step=step,
+                                  per_span=per_span, adjust=parse_adjustments(adjust),
+                                  progress=report)
 
 
 def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
@@ -108,13 +88,10 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
                      quiet: bool) -> None:
     """Envelopes of the largest and smallest live-load effects at every section of MODEL_FILE,
     with the dead loads and factored combinations of the file."""
-    if step is not None and per_span is not None:
-        raise click.UsageError("give --step or --per-span, not both")
     if plot_file:
         check_figure_place(plot_file)
-    analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
-                                    adjust)
-    model = analysis.model
+    run = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
+    model, result = run.analysis.model, run.envelope
     kinds = responses or default_responses(model)
     if fmt == "json":
         click.echo(render_json(envelope_document(result, model.title)))
@@ -150,9 +127,9 @@ def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str
     from vehicles.output.places import check_folder_place
 
     check_folder_place(out_dir, "--out")  # before any work: nothing is written on failure
-    analysis, result = run_envelope(model_file, vehicles, responses, step, per_span, quiet,
-                                    adjust)
-    files = write_report(analysis, result, out_dir, responses or default_responses(analysis.model),
+    run = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
+    files = write_report(run.analysis, run.envelope, out_dir,
+                         responses or default_responses(run.analysis.model),
                          source=report_source(model_file))
     click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "
                f"{len(files.tables)} tables in {out_dir}")

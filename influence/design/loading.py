@@ -1,4 +1,5 @@
-"""Load models for a structure: named library models or vehicle files, in the model's units.
+"""Load models for a structure (named library models or vehicle files, in the model's units),
+and the live-load scale of a girder line that every result built from a model file applies.
 
 Example:
     >>> models, notes = vehicles_for(("HL-93",), "kN-m")
@@ -10,6 +11,9 @@ from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
 
+from influence.errors import ModelError
+from influence.model.basis import DesignBasis, LiveLoadSettings
+from influence.model.structure import Model
 from vehicles.conversion import model_in
 from vehicles.errors import VehicleError
 from vehicles.library.adjust import adjusted
@@ -52,3 +56,47 @@ def vehicles_for(names: Sequence[str], units: str,
                            item="--adjust",
                            fix="adjustments of these models: " + (", ".join(offered) or "none"))
     return models, notes
+
+
+def model_vehicles(names: Sequence[str], model: Model, basis: DesignBasis,
+                   adjust: Mapping[str, float] | None = None) -> tuple[list[LoadModel], list[str]]:
+    """The load models of a run on a model file: those named, else the file's
+    ``live_load.vehicles``; the file's ``live_load.adjust`` applies, overridden by ``adjust``.
+
+    Raises:
+        ModelError: no vehicle named and none in the file.
+    """
+    chosen = tuple(names) or basis.live.vehicles
+    if not chosen:
+        raise ModelError("no vehicles given", source=model.source, item="live load",
+                         fix="give --vehicle NAME or FILE, or live_load.vehicles in the file")
+    return vehicles_for(chosen, model.units, {**basis.live.adjust, **dict(adjust or {})})
+
+
+def live_load_scale(live: LiveLoadSettings, per_lane: bool = False) -> tuple[float, str]:
+    """What one lane's effect is multiplied by for a girder line [-], and the sentence that
+    says so, the same in every output (envelope, governing positions, sweeps).
+
+    Args:
+        live: the model file's live-load settings.
+        per_lane: give one lane's values, leaving out the distribution and multiple presence.
+
+    Example:
+        >>> live = LiveLoadSettings(distribution=0.62)
+        >>> live_load_scale(live)[0], live_load_scale(live, per_lane=True)[0]
+        (0.62, 1.0)
+        >>> live_load_scale(LiveLoadSettings())[1].startswith("Live load of one lane")
+        True
+    """
+    allowance = "dynamic load allowance as each load model's cases give it."
+    factors = (f"distribution {live.distribution:g} x multiple presence "
+               f"{live.multiple_presence:g}")
+    if live.scale == 1.0:
+        return 1.0, ("Live load of one lane: the model file gives no distribution or multiple "
+                     f"presence factor other than 1; {allowance}")
+    if per_lane:
+        return 1.0, (f"Live load of ONE LANE: left out are the {factors} of the model file's "
+                     f"[live_load] (the envelope applies them); {allowance}")
+    return live.scale, (f"Live load per girder line = one lane's effect x {factors} "
+                        f"= {live.scale:g} x one lane ([live_load] of the model file); "
+                        f"{allowance}")

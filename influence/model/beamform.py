@@ -24,9 +24,10 @@ POSITION_TOLERANCE = 1e-9
 """Relative distance [-] within which two chainages are taken as the same point."""
 
 AXIAL_TO_BENDING = 12.0
-"""EA = AXIAL_TO_BENDING * EI / L^2 when a beam gives no EA: axial and bending stiffness of the
-same order. A straight girder under vertical load does not stretch, so the value does not affect
-any vertical response; it only keeps the stiffness well conditioned."""
+"""EA = AXIAL_TO_BENDING * EI / L^2 (the largest EI and the longest span) for every member when a
+beam gives no EA: axial and bending stiffness of the same order. A straight girder under vertical
+load does not stretch, so the value does not affect any vertical response; one value for the
+whole girder keeps the axial stiffness free of the contrasts of EI and of piece lengths."""
 
 EIRanges = Sequence[Sequence[float]]
 
@@ -134,13 +135,16 @@ def continuous_beam(
         segment = next(s for s in segments if s.start - tolerance <= lo and hi <= s.end + tolerance)
         pieces.append((lo, hi, segment))
         per_span[segment.span] = per_span.get(segment.span, 0) + 1
+    # one axial stiffness for the whole girder: segments of very different EI or length would
+    # otherwise make a chain of axial springs of extreme contrast that looks free to slide
+    default_axial = AXIAL_TO_BENDING * max(s.EI for s in segments) / max(spans) ** 2
     seen: dict[int, int] = {}
     for lo, hi, segment in pieces:
         seen[segment.span] = seen.get(segment.span, 0) + 1
         name = f"span{segment.span + 1}"
         if per_span[segment.span] > 1:
             name += _letters(seen[segment.span])
-        axial = EA if EA is not None else AXIAL_TO_BENDING * segment.EI / (hi - lo) ** 2
+        axial = EA if EA is not None else default_axial
         members.append(Member(
             name, points[lo], points[hi], EA=axial, EI=segment.EI,
             release_end=hi in hinge_points, deck=True,

@@ -5,6 +5,7 @@ from __future__ import annotations
 from typing import Any
 
 from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
+from influence.design.loading import live_load_scale
 from influence.output.conventions import LIVE_LABEL, header_lines, printed_effect
 from influence.output.governing_tables import placement_fields
 from influence.output.tables import Table
@@ -23,9 +24,7 @@ def envelope_header(envelope: Envelope, title: str) -> list[str]:
     lines.append("Load models: " + "; ".join(
         f"{m.name} ({m.standard}{', ' + m.clause if m.clause else ''})" if m.standard else m.name
         for m in envelope.models))
-    lines.append(f"{LIVE_LABEL} (live load with its dynamic load allowance, as each load "
-                 f"model's cases give it) per girder line = one lane's effect x distribution "
-                 f"{live.distribution:g} x multiple presence {live.multiple_presence:g}.")
+    lines.append(f"{LIVE_LABEL}: " + live_load_scale(live)[1])
     lines.extend(envelope.notes)
     return lines
 

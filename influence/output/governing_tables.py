@@ -38,10 +38,15 @@ def _concurrent_document(result: GoverningResult,
             for other, c in zip(result.others, values, strict=True)]
 
 
-def placement_fields(placement: Placement, scale: float = 1.0) -> dict[str, Any]:
-    """A placement as plain data; ``value`` multiplied by ``scale`` (the live-load scale)."""
+def placement_fields(placement: Placement, scale: float = 1.0,
+                     live_scale: float | None = None) -> dict[str, Any]:
+    """A placement as plain data; ``value`` multiplied by ``scale`` (the live-load scale).
+    ``live_scale``: the scale already in the placement's value, to give one lane's value too."""
+    per_lane = {} if live_scale is None else {
+        "value_per_lane": placement.value / live_scale if live_scale else None}
     return {
         "value": placement.value * scale,
+        **per_lane,
         "vehicle": placement.model,
         "case": placement.case,
         "direction": placement.direction,
@@ -62,12 +67,17 @@ def placement_fields(placement: Placement, scale: float = 1.0) -> dict[str, Any]
 
 def placement_document(placement: Placement, result: GoverningResult,
                        values: Sequence[Concurrent]) -> dict[str, Any]:
-    return {**placement_fields(placement),
+    return {**placement_fields(placement, live_scale=result.live_scale),
             "concurrent": _concurrent_document(result, values)}
 
 
-def governing_document(result: GoverningResult, title: str,
-                       notes: Sequence[str] = ()) -> dict[str, Any]:
+def _maybe(placement: Placement | None, result: GoverningResult) -> dict[str, Any] | None:
+    return None if placement is None else placement_fields(placement,
+                                                           live_scale=result.live_scale)
+
+
+def governing_document(result: GoverningResult, title: str, notes: Sequence[str] = (),
+                       live_note: str = "") -> dict[str, Any]:
     line = result.line
     names = labels(line.units)
     g = result.governing
@@ -81,6 +91,8 @@ def governing_document(result: GoverningResult, title: str,
                   "effect": effect_unit(line.response.kind, line.units,
                                         line.response.component)},
         "notes": list(notes),
+        "live_load": {"scale": result.live_scale, "per_girder_line": result.live_scale != 1.0,
+                      "statement": live_note},
         "conventions": header_lines(title, line.units)[1:],
         "ranged_tolerance": g.ranged_tolerance,
         "max": None if g.max is None else placement_document(g.max, result,
@@ -93,15 +105,23 @@ def governing_document(result: GoverningResult, title: str,
             "min": [placement_document(p, result, c)
                     for p, c in zip(g.top_min, result.concurrent_top_min, strict=True)],
         },
+        "by_load_model": [{"vehicle": row.model, "case": row.case,
+                           "max": _maybe(row.max, result), "min": _maybe(row.min, result)}
+                          for row in result.by_case],
     }
 
 
-def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = ()) -> Table:
+NO_EXTREME = "none: no position gives an effect of this sign"
+"""What a table says for a sense whose extreme is zero (no vehicle is placed for it)."""
+
+
+def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = (),
+                    live_note: str = "") -> Table:
     line = result.line
     names = labels(line.units)
     unit = effect_unit(line.response.kind, line.units, line.response.component)
     header = header_lines(f"{title}: governing positions for {line.response.label}",
-                          line.units) + list(notes)
+                          line.units) + ([live_note] if live_note else []) + list(notes)
     header.append("Lead position: chainage of the train's front axle (reference point); "
                   "axle chainages front to rear as the train is described.")
     columns = ["sense", "rank", f"effect [{unit}]", "vehicle", "case", "direction",
@@ -113,6 +133,8 @@ def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = 
     g = result.governing
     for sense, placements, concurrents in (("max", g.top_max, result.concurrent_top_max),
                                            ("min", g.top_min, result.concurrent_top_min)):
+        if not placements:
+            rows.append((sense, "-", "-", NO_EXTREME, *["-"] * (len(columns) - 4)))
         for rank, (p, c) in enumerate(zip(placements, concurrents, strict=True), start=1):
             rows.append((
                 sense, rank, p.value, p.model, p.case, p.direction, p.lead_position,
@@ -125,6 +147,25 @@ def governing_table(result: GoverningResult, title: str, notes: Sequence[str] = 
     formats = ("text", "count", "effect", "text", "text", "text", "position", "text", "text",
                "text", "text", *(["effect"] * len(result.others)))
     return Table(header, tuple(columns), rows, formats=formats)
+
+
+def case_table(result: GoverningResult, title: str) -> Table:
+    """One row per load model and case: each case's own largest and smallest effect and where,
+    so that no model's result is hidden behind another's."""
+    line = result.line
+    names = labels(line.units)
+    unit = effect_unit(line.response.kind, line.units, line.response.component)
+    header = [f"{title}: each load model and case alone, {line.response.label}"]
+    rows: list[tuple[Any, ...]] = []
+    for row in result.by_case:
+        cells: list[Any] = [row.model, row.case]
+        for placement in (row.max, row.min):
+            cells += (["-", "-", "-"] if placement is None else
+                      [placement.value, placement.direction, placement.lead_position])
+        rows.append(tuple(cells))
+    return Table(header, ("vehicle", "case", f"max [{unit}]", "direction",
+                          f"lead [{names.length}]", f"min [{unit}]", "direction",
+                          f"lead [{names.length}]"), rows)
 
 
 def sweep_table(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
@@ -145,10 +186,13 @@ def sweep_table(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
 
 
 def sweep_document(sweeps: Sequence[Sweep], kind: str, units: str, title: str,
-                   notes: Sequence[str] = ()) -> dict[str, Any]:
+                   notes: Sequence[str] = (), live_scale: float = 1.0,
+                   live_note: str = "") -> dict[str, Any]:
     names = labels(units)
     return {
         "title": title, "response": kind, "notes": list(notes),
+        "live_load": {"scale": live_scale, "per_girder_line": live_scale != 1.0,
+                      "statement": live_note},
         "units": {"force": names.force, "length": names.length,
                   "effect": effect_unit(kind, units)},
         "sweeps": [{"case": s.case, "direction": s.direction, "sense": s.sense,

@@ -1,16 +1,17 @@
 """Absolute maximum moment of a train on a simple span: Barre's theorem and worked examples.
 
 References:
-- Barre's theorem as stated in T. G. Hicks, *Civil Engineering Formulas*, Ch. 2, p. 64, and the
-  CE 331 handout "Maximum Moment in a Simple Span Due to a Set of Moving Loads" (Spring 2009);
-  exact statement in REFERENCES.md 2.2: for the axles S on the span (total W, resultant at
-  offset d_bar) and critical axle k at offset d_k,
+- Barre's theorem as stated in T. G. Hicks, *Civil Engineering Formulas*, McGraw-Hill,
+  ch. 2, p. 64 (confirmed), written exactly (computed): for the axles S on the span (total W,
+  resultant at offset d_bar) and critical axle k at offset d_k,
   M_k(s) = W (L - s - d_bar)(s + d_k)/L - sum_{i in S, d_i < d_k} P_i (d_k - d_i),
   largest at s* = (L - d_bar - d_k)/2, clipped to the interval of s over which S is fixed.
-- CE 331 handout, Problem 8.39: 24, 24, 6 k at 16 ft, 12 ft; L = 40 ft: 323 k-ft published
-  (323.267 exact, REFERENCES.md 2.3, confirmed).
-- Kassimali, *Structural Analysis* 6th ed., P9.22: 125, 100, 50 kN at 0, 2, 5 m; L = 15 m:
-  831.856 kN m (computed, method confirmed; REFERENCES.md 2.3).
+- 24, 24, 6 k at 16 ft, 12 ft on L = 40 ft, by Barre's rule by hand (computed): all three axles
+  on the span, W = 54 k, d_bar = 552/54 = 10.222 ft, the middle axle critical at s* = 6.889 ft:
+  54 x 22.889^2 / 40 - 24 x 16 = 323.267 k-ft.
+- A. Kassimali, *Structural Analysis*, 6th ed., Cengage, Prob. 9.22: 125, 100, 50 kN at
+  0, 2, 5 m; L = 15 m: 831.856 kN m under the 100 kN load (computed by the same rule; the
+  book's method).
 
 The Barre search is written here, independent of the library; the library is asked for the
 exact maximum at single sections and must reproduce it at Barre's section and never exceed it
@@ -56,7 +57,7 @@ def barre_absolute_maximum(L: float, loads, offsets) -> tuple[float, float]:
 @pytest.mark.parametrize(
     ("L", "loads", "gaps", "published"),
     [
-        (40.0, [24.0, 24.0, 6.0], [16.0, 12.0], 323.267),  # CE 331 Problem 8.39
+        (40.0, [24.0, 24.0, 6.0], [16.0, 12.0], 54 * (40 - 552 / 54 + 16) ** 2 / 160 - 24 * 16),
         (15.0, [125.0, 100.0, 50.0], [2.0, 3.0], 831.856),  # Kassimali P9.22
         (100.0, [8.0, 32.0, 32.0], [14.0, 14.0], None),  # HL-93 truck, rear gap 14 ft
         (20.0, [8.0, 32.0], [14.0], 160.0),  # H20: the 32 kip axle alone at midspan

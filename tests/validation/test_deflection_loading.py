@@ -3,7 +3,7 @@
 Source: AASHTO LRFD Bridge Design Specifications 3.6.1.3.2 (recalled from memory, unconfirmed):
 the live-load deflection is the larger of the design truck alone and 25 % of the design truck
 taken with the design lane load; design truck 72 kip (8 + 32 + 32) and lane 0.64 kip/ft
-(3.6.1.2.2 and 3.6.1.2.4, confirmed in ../shared/REFERENCES.md 3.1).
+(AASHTO LRFD Bridge Design Specifications, Fig. 3.6.1.2.2-1 and 3.6.1.2.4: confirmed).
 Closed form for the check: the midspan deflection of a simple span under one load P at midspan
 is PL^3/(48EI) (any beam table, e.g. AISC Manual "simple beam, concentrated load at center").
 """

@@ -1,13 +1,15 @@
 """Moving concentrated loads on a simple beam: handbook cases and published worked examples.
 
 References:
-- AISC Steel Construction Manual, "Beam diagrams and formulas", moving-load cases (case numbers
-  42-45 from memory, unconfirmed); the formulas confirmed in substance by T. G. Hicks, *Civil
-  Engineering Formulas*, Ch. 2, p. 64, Figs. 2.18-2.20 (REFERENCES.md 2.1).
-- J. M. Gere, *Mechanics of Materials* 7th ed., Prob. 4.5-36 (REFERENCES.md 2.3).
-- T. G. Hicks, *Handbook of Civil Engineering Calculations* 2nd ed., p. 1.77 (REFERENCES.md 2.3).
-- AASHTO LRFD Bridge Design Specifications, Art. 3.6.1.2 (HL-93 truck 8-32-32 kip at 14 ft,
-  lane 0.64 klf); REFERENCES.md 3.1 (confirmed).
+- AISC *Steel Construction Manual*, "Beam Diagrams and Formulas", moving-load cases (case
+  numbers 42-45 from memory, unconfirmed); the formulas confirmed in substance by T. G. Hicks,
+  *Civil Engineering Formulas*, McGraw-Hill, ch. 2, p. 64, Figs. 2.18-2.20, and
+  re-derived here (computed).
+- J. M. Gere, *Mechanics of Materials*, 7th ed., Cengage, 2009, Prob. 4.5-36 (confirmed).
+- T. G. Hicks, *Handbook of Civil Engineering Calculations*, 2nd ed., McGraw-Hill, 2007,
+  p. 1.77 (confirmed).
+- AASHTO *LRFD Bridge Design Specifications*, Art. 3.6.1.2.2 and 3.6.1.2.4 (HL-93 truck 8-32-32
+  kip at 14 ft, lane 0.64 klf; confirmed).
 
 Closed forms are written in the assertions; the span, loads and spacings are the handbook's
 symbols given numbers.

@@ -1,10 +1,11 @@
 """Influence lines of statically determinate and simple indeterminate beams against closed forms.
 
-Sources (see ../shared/REFERENCES.md section 1):
-- Simple beam R_A, V(c), M(c): F. Fanous, "Introductory Problems in Structural Analysis: Influence
-  Lines", Iowa State University (confirmed there); any structural-analysis text.
-- Overhang reaction R_B = (L + e)/L at the tip, 16 m span + 4 m overhang: 1.25: CourseHero notes
-  "9Influence" (confirmed there).
+Sources (listed in full in docs/references.md):
+- Simple beam R_A, V(c), M(c): statics of the simple beam, as R. C. Hibbeler, *Structural
+  Analysis*, ch. 6 (influence lines for statically determinate structures) derives them;
+  written here as closed forms (computed).
+- Overhang reaction R_B = (L + e)/L and R_A = -e/L at the tip (moments about the other support;
+  the same chapter of Hibbeler): 16 m span + 4 m overhang gives 1.25 and -0.25 (computed).
 - Cantilever R_A = 1, M_A = -a, V(c) = 1 beyond c: common practice.
 - Propped cantilever R_B = a^2(3L - a)/(2L^3), M_A = -ab(2L - a)/(2L^2), largest |M_A| =
   L/(3 sqrt 3) at a = L(1 - 1/sqrt 3): AISC Manual beam diagrams, "beam fixed at one end,

@@ -1,12 +1,13 @@
 """A train of concentrated loads over a truss with floor beams, end to end: model, influence line
 of the diagonal through the stringers, exact placement.
 
-Source: T. G. Hicks, "Handbook of Civil Engineering Calculations", 2nd ed., pp. 1.72-1.73
-(../shared/REFERENCES.md section 4; confirmed there): span 200 ft of 8 panels of 25 ft, depth
-30 ft; loads 5, 12, 18 and 15 kip at 0, 6, 16 and 22 ft. Published: the largest shear in panel de
-is 23.0 kip (load 4 at e, moving left to right) and the diagonal De carries 23.0 x 1.30 = 29.9
-kip. Computed exactly (brute force in the reference notes, both directions): 22.95 kip and
-29.87 kip; the published figures are those rounded.
+Source: T. G. Hicks, *Handbook of Civil Engineering Calculations*, 2nd ed., McGraw-Hill, 2007,
+pp. 1.72-1.73 (confirmed): span 200 ft of 8 panels of 25 ft, depth 30 ft; loads 5, 12, 18 and
+15 kip at 0, 6, 16 and 22 ft. Published: the largest shear in panel de is 23.0 kip (load 4 at e,
+moving left to right) and the diagonal De carries 23.0 x 1.30 = 29.9 kip. Computed exactly (a
+brute-force search over positions in both directions, and the panel-shear line of
+tests/validation/test_truss_panel_hicks.py): 22.95 kip and 29.87 kip; the published figures are
+those rounded.
 """
 
 from __future__ import annotations

@@ -1,10 +1,10 @@
 """Indirect loading through floor beams: panel shear of a Pratt truss.
 
-Reference: T. G. Hicks, *Handbook of Civil Engineering Calculations* 2nd ed., pp. 1.72-1.73
-(REFERENCES.md section 4, confirmed). Span 200 ft, 8 panels of 25 ft; panel de between 75 and
+Reference: T. G. Hicks, *Handbook of Civil Engineering Calculations*, 2nd ed., McGraw-Hill,
+2007, pp. 1.72-1.73 (confirmed). Span 200 ft, 8 panels of 25 ft; panel de between 75 and
 100 ft. Influence line of V_de: -x/200 left of d, (200 - x)/200 right of e, straight between.
 Loads 5, 12, 18, 15 kip at 0, 6, 16, 22 ft. Published: V_de,max = 23.0 kip (left to right,
-load 4 at e); exact 22.95 kip (REFERENCES.md, computed by brute force over positions both ways).
+load 4 at e); exact 22.95 kip (computed: a brute-force search over positions both ways).
 """
 
 from __future__ import annotations

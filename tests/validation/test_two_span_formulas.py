@@ -1,8 +1,9 @@
 """The continuous-beam lines of the test helpers against the published two-span formulas.
 
-Reference: piping-designer.com, "Two Span Continuous Beam - Equal Spans, Concentrated Load at
-Any Point" (reproduces the AISC beam-diagram case); REFERENCES.md section 1, confirmed +
-computed. Load at a in span AB, b = L - a.
+Reference: AISC *Steel Construction Manual*, "Beam Diagrams and Formulas", continuous beam of
+two equal spans with a concentrated load at any point (case number from memory, unconfirmed).
+The formulas below are re-derived by the three-moment equation (A. Kassimali, *Structural
+Analysis*, the force method for continuous beams): computed. Load at a in span AB, b = L - a.
 """
 
 from __future__ import annotations

@@ -28,7 +28,7 @@ Example:
     >>> round(result.max.value, 6), result.max.section_axle  # the 32 kip axle over the section
     (160.0, 1)
     >>> result.min is None  # the line is never negative: no smallest effect
-    False
+    True
 """
 
 from __future__ import annotations
@@ -44,9 +44,11 @@ from vehicles.errors import VehicleError
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.search.effects import Effects, RangedValues, build_effects
 from vehicles.search.placement import (
+    POSITION_TOLERANCE_FRACTION,
     Placement,
     best_placements,
     chosen_peaks,
+    distinct,
     placement_at,
     ranked,
 )
@@ -70,9 +72,12 @@ class Governing:
 
     Attributes:
         kind: response kind.
-        max, min: the largest and the smallest effect, None when no case applies.
-        top_max, top_min: distinct local extremes (separate peaks), largest (smallest) first;
-            every applicable case and direction contributes its own peaks.
+        max, min: the largest and the smallest effect; None when no case applies, or when the
+            extreme is zero (no load position gives an effect of that sign beyond round-off:
+            no governing vehicle is placed).
+        top_max, top_min: distinct local extremes (separate peaks, none the mirror image of
+            another, none zero), largest (smallest) first; every applicable case and direction
+            contributes its own peaks.
         ranged_tolerance: the bracket width used for trains with several ranges [length] (None:
             :data:`vehicles.search.ranged.TOLERANCE_FRACTION` of each range); a single range is
             exact.
@@ -361,11 +366,14 @@ class _Search:
             if effects is not None:
                 groups.setdefault(id(effects), (effects, []))[1].append(line)
         for effects, lines in groups.values():
+            sign = 1.0 if effects.sense == "max" else -1.0
             model = self.visits[int(best.visit[lines[0]])].model.name
             placements = best_placements(effects, best.position[lines], self.prepared, model,
                                          [sections[line] for line in lines])
-            for line, placement in zip(lines, placements, strict=True):
-                found[line] = [placement]
+            tolerances = effects.skeletons.tolerances[best.position[lines]]
+            for line, placement, tolerance in zip(lines, placements, tolerances, strict=True):
+                if sign * placement.value > tolerance:  # a zero extreme is none
+                    found[line] = [placement]
         return found
 
     def _tops(self, sense: str, applicable: list[Visit], top: int,
@@ -380,8 +388,14 @@ class _Search:
                 sk = effects.skeletons.function(k)
                 signed = sk if sense == "max" else sk.negated()
                 breaks, _ = effects.functions.function(k)
-                for peak in chosen_peaks(signed, breaks, top):
+                # twice as many as wanted: mirror images of one placement count once
+                for peak in chosen_peaks(signed, breaks, 2 * top):
+                    if peak.value <= sk.tolerance:
+                        continue  # not beyond zero: no extreme
                     every[k].append(placement_at(
                         effects, k, self.prepared, visit.model.name,
                         Peak(peak.position, sign * peak.value, peak.side), section=sections[k]))
-        return [ranked(found, sense)[:top] for found in every]
+        tolerances = POSITION_TOLERANCE_FRACTION * np.maximum(
+            self.prepared.ends - self.prepared.starts, 1.0)
+        return [distinct(ranked(found, sense), float(tolerances[k]))[:top]
+                for k, found in enumerate(every)]

@@ -15,6 +15,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from piecewise.skeleton import Peak, Skeleton, distinct_peaks
+from piecewise.tolerances import VALUE
 from vehicles.search.effects import Effects
 from vehicles.search.prepared import PreparedLines
 from vehicles.search.terms import travel_sign
@@ -191,6 +192,73 @@ def _cleared(segments: tuple[tuple[float, float], ...],
             if piece[1] > piece[0]:
                 kept.append(piece)
     return tuple(kept)
+
+
+def is_mirror(first: Placement, second: Placement, tolerance: float) -> bool:
+    """Whether two placements of one case are one placement seen twice: the same loads at the
+    same chainages, or at chainages mirrored about one point (a forward placement and its reverse
+    on a symmetric line, or a symmetric train's two halves), with the same value.
+
+    Args:
+        first, second: the placements.
+        tolerance: positions closer than this are one [length]; values closer than
+            :data:`~piecewise.tolerances.VALUE` of the larger are one.
+
+    Example (a 10-unit two-axle train on a line symmetric about 40: forward with the heavy axle
+    at 40, and reverse with it at 40, stand as mirror images):
+        >>> def at(lead, direction, positions):
+        ...     return Placement(5.0, "max", "M", "pair", direction, lead, positions,
+        ...                      (2.0, 8.0), (), (), (), 0.0, None, 0.0, 1, None, ())
+        >>> is_mirror(at(44.0, "forward", (44.0, 40.0)), at(36.0, "reverse", (36.0, 40.0)),
+        ...           1e-9)
+        True
+        >>> is_mirror(at(44.0, "forward", (44.0, 40.0)), at(45.0, "reverse", (45.0, 41.0)),
+        ...           1e-9)
+        False
+    """
+    if (first.model, first.case) != (second.model, second.case):
+        return False
+    if abs(first.value - second.value) > VALUE * max(abs(first.value), abs(second.value)):
+        return False
+    own = _loads_placed(first)
+    other = _loads_placed(second)
+    if len(own) != len(other):
+        return False
+    if _same(own, other, tolerance):
+        return True
+    if not own:
+        return False
+    centre = 0.5 * (min(x for x, _ in own) + max(x for x, _ in other))
+    return _same(sorted((2 * centre - x, w) for x, w in own), other, tolerance)
+
+
+def _loads_placed(placement: Placement) -> list[tuple[float, float]]:
+    """(chainage, load) of every axle, patch end and knife edge, and the lane's ends, sorted."""
+    found = [(x, w) for x, w in zip(placement.axle_positions, placement.axle_loads, strict=True)
+             if w != 0.0]
+    for start, end, q in placement.patch_segments:
+        found += [(start, q), (end, q)]
+    for start, end in placement.lane_segments:
+        found += [(start, -1.0), (end, -1.0)]
+    if placement.knife_edge_position is not None:
+        found.append((placement.knife_edge_position, placement.knife_edge_load))
+    return sorted(found)
+
+
+def _same(first: list[tuple[float, float]], second: list[tuple[float, float]],
+          tolerance: float) -> bool:
+    return len(first) == len(second) and all(
+        abs(a - c) <= tolerance and abs(b - d) <= VALUE * max(abs(b), abs(d), 1.0)
+        for (a, b), (c, d) in zip(first, second, strict=True))
+
+
+def distinct(placements: Sequence[Placement], tolerance: float) -> list[Placement]:
+    """The placements without those that mirror an earlier one (see :func:`is_mirror`)."""
+    kept: list[Placement] = []
+    for placement in placements:
+        if not any(is_mirror(earlier, placement, tolerance) for earlier in kept):
+            kept.append(placement)
+    return kept
 
 
 def ranked(found: list[Placement], sense: str) -> list[Placement]:
