@@ -123,13 +123,13 @@ def report_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[str
     envelope and combination tables as CSV."""
     if step is not None and per_span is not None:
         raise click.UsageError("give --step or --per-span, not both")
-    from influence.output.report import report_source, write_report
+    from influence.output.report import report_from_file
     from vehicles.output.places import check_folder_place
 
     check_folder_place(out_dir, "--out")  # before any work: nothing is written on failure
-    run = run_envelope(model_file, vehicles, responses, step, per_span, quiet, adjust)
-    files = write_report(run.analysis, run.envelope, out_dir,
-                         responses or default_responses(run.analysis.model),
-                         source=report_source(model_file))
+    with progress_bar("envelopes", quiet) as report:
+        files = report_from_file(model_file, out_dir, vehicles=vehicles, responses=responses,
+                                 step=step, per_span=per_span, adjust=parse_adjustments(adjust),
+                                 progress=report)
     click.echo(f"wrote {files.pdf} ({files.pages} pages), {len(files.figures)} figures and "
                f"{len(files.tables)} tables in {out_dir}")

@@ -59,6 +59,6 @@ def draw_governing_ratings(ratings: Ratings, entries: Sequence[SectionRating] | 
             legend.remove()
     for ax in flat[len(chosen):]:
         ax.set_visible(False)
-    figure.suptitle(f"{ratings.title}: governing positions of the rating vehicles "
+    figure.suptitle(f"{ratings.title}\ngoverning positions of the rating vehicles "
                     "(arrows: axles as placed, allowance included)", fontsize=10)
     return figure  # type: ignore[no-any-return]

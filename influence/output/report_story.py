@@ -18,6 +18,11 @@ from influence.design.envelope import Envelope, EnvelopeEntry, governing_label
 from influence.model.project import ProjectInfo
 from influence.output.conventions import CAUTION, LIVE_LABEL, SIGN_CONVENTIONS, printed_effect
 from influence.output.envelope_figures import bar_entries
+from influence.output.report_assessments import (
+    Assessments,
+    fatigue_section,
+    rating_section,
+)
 from influence.output.report_figures import ReportFigure, place, rendered
 from influence.output.report_pages import (
     FRAME_HEIGHT,
@@ -157,6 +162,10 @@ def deflection_verdict(envelope: Envelope) -> str:
             f"{governing_label(worst.placement)}).")
 
 
+CAPTION_ROOM = 40.0
+"""Height [pt] kept below a figure for its caption."""
+
+
 class _Writer:
     """Collects flowables and figures; a heading and its introduction are held until what they
     introduce, so that they never stand alone at the foot of a page."""
@@ -203,6 +212,10 @@ class _Writer:
         self.flowables.append(gap(6))
 
     def figure(self, key: str, figure: Any, caption: str = "", png: bool = True) -> None:
+        width, height = figure.get_size_inches() * 72.0
+        shrink = min(FRAME_WIDTH / width, (FRAME_HEIGHT - CAPTION_ROOM) / height, 1.0)
+        if shrink < 1.0:  # a figure drawn for a larger page is redrawn to fit this one
+            figure.set_size_inches(width * shrink / 72.0, height * shrink / 72.0)
         made = rendered(key, figure, png)
         self.figures.append(made)
         items = [*self.pending, place(made, self.places)]
@@ -399,11 +412,16 @@ def _tables(w: _Writer, envelope: Envelope, kinds: Sequence[str]) -> None:
 
 def report_story(analysis: Analysis, envelope: Envelope, kinds: Sequence[str],
                  source: ReportSource,
-                 deflection_models: Sequence[LoadModel] = ()) -> Story:
-    """Everything the report prints, with its figures drawn once each."""
+                 deflection_models: Sequence[LoadModel] = (),
+                 assessments: Assessments | None = None) -> Story:
+    """Everything the report prints, with its figures drawn once each; the load rating and
+    fatigue pages when ``assessments`` holds them."""
     w = _Writer()
     title = analysis.model.title
+    assessments = assessments or Assessments()
     _title_block(w, envelope, source, title)
+    for line in assessment_summary(assessments):
+        w.text(line)
     w.add(PageBreak())
     w.add(Paragraph("Contents", w.style["h1"]))
     w.add(contents(w.style))
@@ -413,9 +431,45 @@ def report_story(analysis: Analysis, envelope: Envelope, kinds: Sequence[str],
     _influence_lines(w, analysis, envelope)
     _envelopes(w, envelope, kinds, title)
     _tables(w, envelope, kinds)
+    number = 7
     if envelope.deflection_checks:
         w.heading("7 Live-load deflection check")
         w.text(deflection_verdict(envelope))
         w.table(deflection_check_table(envelope))
+        number += 1
+
+    def figure(key: str, drawn: Any, caption: str) -> None:
+        w.figure(key, drawn if hasattr(drawn, "savefig") else drawn.figure, caption)
+
+    if assessments.ratings is not None:
+        rating_section(w.heading, w.text, w.table, figure, number, assessments.ratings,
+                       analysis.model)
+        number += 1
+    if assessments.fatigue is not None:
+        fatigue_section(w.heading, w.text, w.table, figure, number, assessments.fatigue)
     w.add(gap(0))  # the last heading held, if any
     return Story(w.flowables, w.figures, w.places)
+
+
+def assessment_summary(assessments: Assessments) -> list[str]:
+    """Sentences for the first page: the lowest rating factor, the shortest fatigue life, and
+    any assessment asked for that could not run."""
+    lines = []
+    ratings = assessments.ratings
+    if ratings is not None and ratings.ratings:
+        low = min(ratings.ratings, key=lambda r: r.rating_factor)
+        lines.append(f"Load rating ({ratings.settings.method}): lowest factor "
+                     f"{low.rating_factor:.3f}, {low.vehicle} at the {low.level} level "
+                     f"({low.limit_state or 'rating'}), {low.response} {low.sense} at "
+                     f"{low.section}; postings and every factor in the load-rating section.")
+    results = assessments.fatigue
+    if results is not None and results.details:
+        short = min(results.details, key=lambda d: d.life.life_years)
+        life = short.life
+        verdict = ("infinite life" if life.infinite_life else
+                   f"shortest life {life.life_years:.4g} years against a design life of "
+                   f"{life.design_life_years:g}")
+        lines.append(f"Fatigue ({results.traffic.description}): {verdict} "
+                     f"({short.detail.name}); every detail in the fatigue section.")
+    lines.extend(assessments.notes)
+    return lines
