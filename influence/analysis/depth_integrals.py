@@ -35,7 +35,6 @@ from __future__ import annotations
 import math
 
 import numpy as np
-from scipy import integrate
 
 SERIES_LIMIT = 0.8
 """Size [-] of |e T| (linear depth) or q tau^2 (parabolic) below which the binomial series is used
@@ -154,6 +153,8 @@ def _quadrature(integrand: object, upper: np.ndarray) -> tuple[np.ndarray, np.nd
     for index in order:
         limit = float(upper[index])
         if limit > previous:
+            from scipy import integrate  # only where no closed form serves
+
             part, error = integrate.quad(integrand, previous, limit,  # type: ignore[arg-type]
                                          epsabs=0.0, epsrel=QUADRATURE_TOLERANCE,
                                          limit=QUADRATURE_SUBDIVISIONS)

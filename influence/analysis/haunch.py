@@ -31,12 +31,11 @@ from dataclasses import dataclass
 import numpy as np
 
 from influence.errors import ModelError
+from influence.model.variation import HAUNCH_SHAPES, LENGTH_AGREEMENT, Haunch, SectionVariation
 
-HAUNCH_SHAPES = ("straight", "parabolic")
-"""How a haunch's depth varies: linearly, or as a parabola with its vertex at the prismatic part."""
-
-LENGTH_AGREEMENT = 1e-9
-"""Relative disagreement [-] allowed between a haunch's fraction and length when both are given."""
+__all__ = ["HAUNCH_SHAPES", "LENGTH_AGREEMENT", "DepthProfile", "Haunch", "SectionVariation",
+           "VariableSection", "depth_ratio_for_inertia", "haunched_section", "section_of",
+           "tapered_section"]
 
 _SOURCE = "haunched member"
 
@@ -48,65 +47,6 @@ def _fail(problem: str, item: str, fix: str) -> ModelError:
 def _positive(value: float, item: str, unit: str) -> None:
     if not (math.isfinite(value) and value > 0):
         raise _fail(f"{item} is {value!r}", item, f"give a positive, finite {item} [{unit}]")
-
-
-@dataclass(frozen=True)
-class Haunch:
-    """A haunch at one end of a member.
-
-    Args:
-        shape: "straight" (depth linear) or "parabolic" (vertex where the haunch meets the
-            prismatic part).
-        depth_ratio: r [-]: the depth at the member end is hc (1 + r), r >= 0.
-        length_fraction: a [-]: the haunch length as a fraction of the member length (PCA style).
-        length: the haunch length [length]; give it, the fraction, or both (they must agree).
-    """
-
-    shape: str
-    depth_ratio: float
-    length_fraction: float | None = None
-    length: float | None = None
-
-    def __post_init__(self) -> None:
-        if self.shape not in HAUNCH_SHAPES:
-            raise _fail(f"haunch shape {self.shape!r}", "shape", f"use one of {HAUNCH_SHAPES}")
-        if not (math.isfinite(self.depth_ratio) and self.depth_ratio >= 0):
-            raise _fail(f"depth ratio {self.depth_ratio!r}", "depth_ratio",
-                        "give r >= 0: the end depth is hc (1 + r)")
-        if self.length_fraction is None and self.length is None:
-            raise _fail("haunch with neither length nor length fraction", "length",
-                        "give length_fraction (a, of the member length) or length")
-        if self.length_fraction is not None and not 0 < self.length_fraction <= 1:
-            raise _fail(f"length fraction {self.length_fraction!r}", "length_fraction",
-                        "give 0 < a <= 1")
-        if self.length is not None:
-            _positive(self.length, "haunch length", "length")
-
-    def span(self, member_length: float) -> float:
-        """The haunch length [length] on a member of ``member_length`` [length].
-
-        Example:
-            >>> Haunch("parabolic", 1.0, length_fraction=0.2).span(15.0)
-            3.0
-        """
-        if self.length_fraction is None:
-            assert self.length is not None
-            return self.length
-        from_fraction = self.length_fraction * member_length
-        if self.length is not None and not math.isclose(
-                self.length, from_fraction, rel_tol=LENGTH_AGREEMENT):
-            raise _fail(f"haunch length {self.length} but fraction {self.length_fraction} of "
-                        f"{member_length} is {from_fraction}", "length",
-                        "give the length or the fraction, or make them agree")
-        return from_fraction
-
-    def depth(self, distance: float) -> tuple[float, float, float]:
-        """Relative depth coefficients (c0, c1, c2) in t, the distance from the prismatic part
-        toward the member end [length], over a haunch of length ``distance`` [length]."""
-        r = self.depth_ratio
-        if self.shape == "straight":
-            return (1.0, r / distance, 0.0)
-        return (1.0, 0.0, r / distance**2)
 
 
 @dataclass(frozen=True)
@@ -294,3 +234,23 @@ def depth_ratio_for_inertia(inertia_ratio: float, inertia_exponent: float = 3.0)
         raise _fail(f"end inertia {inertia_ratio} times the middle", "inertia_ratio",
                     "a haunch deepens the member: give I_end >= I_middle")
     return float(inertia_ratio ** (1.0 / inertia_exponent) - 1.0)
+
+
+def section_of(variation: SectionVariation, length: float, EI: float,
+               EA: float) -> VariableSection:
+    """The section of a member of ``length`` [length] whose variation the model describes; EI
+    [force * length^2] and EA [force] are those of its prismatic part (haunches) or of its start
+    (a taper).
+
+    Example:
+        >>> taper = SectionVariation(taper=2.0)
+        >>> section_of(taper, 8.0, 1.0, 1.0).EI([8.0]).tolist()
+        [8.0]
+    """
+    if variation.taper is not None:
+        return tapered_section(length, EI, EA, variation.taper,
+                               inertia_exponent=variation.inertia_exponent,
+                               area_exponent=variation.area_exponent)
+    return haunched_section(length, EI, EA, start=variation.start, end=variation.end,
+                            inertia_exponent=variation.inertia_exponent,
+                            area_exponent=variation.area_exponent)

@@ -119,14 +119,21 @@ class LinePieces:
     Attributes:
         breakpoints: each line's piece ends [length from the member start].
         coefficients: each line's (degree+1, pieces) in powers of (a - piece start).
-        bounds: (lines,) the bound of each line's pieces [line units]: the proven truncation
-            bound (at most :data:`CERTIFIED_TOLERANCE` of the line's scale) plus the rounding
-            allowance (at most :data:`ROUNDING_LIMIT` of it).
+        truncation: (lines,) the proven bound of each line's truncation error [line units]
+            (at most :data:`CERTIFIED_TOLERANCE` of the line's scale where the scale was given).
+        rounding: (lines,) each line's rounding allowance [line units] (at most
+            :data:`ROUNDING_ALLOWANCE` of the scale where given).
     """
 
     breakpoints: tuple[np.ndarray, ...]
     coefficients: tuple[np.ndarray, ...]
-    bounds: np.ndarray
+    truncation: np.ndarray
+    rounding: np.ndarray
+
+    @property
+    def bounds(self) -> np.ndarray:
+        """Each line's bound: proven truncation plus rounding allowance [line units]."""
+        return self.truncation + self.rounding  # type: ignore[no-any-return]
 
     def values(self, line: int, positions: np.ndarray | list[float]) -> np.ndarray:
         """Line ``line``'s pieces at member positions [length]."""
@@ -151,15 +158,16 @@ _EPS = float(np.finfo(float).eps)
 
 
 def line_pieces(basis: MemberBasis, terms: np.ndarray, lo: float, hi: float,
-                scales: np.ndarray) -> LinePieces:
+                scales: np.ndarray | None) -> LinePieces:
     """Certified pieces on [lo, hi] of the integral forms with ``terms`` (lines, 5, 4).
 
     Args:
         basis: the member's certified integrals.
         terms: each line's integral-form terms (rows: 1, F_0, F_1, F_2, G_0; cubic in a).
         lo, hi: the stretch of load positions [length from the member start].
-        scales: each line's scale [line units]: the bound is required below the tolerance
-            times it.
+        scales: each line's scale [line units]: a line whose bounds from the shared basis are
+            not within the tolerances of it is certified on its own; None: no line is, and the
+            caller judges the bounds returned (against the whole line's scale, once known).
 
     Raises:
         ModelError: when a line cannot be certified (see :func:`certify`).
@@ -193,15 +201,16 @@ def line_pieces(basis: MemberBasis, terms: np.ndarray, lo: float, hi: float,
     rounding = (np.einsum("lrp,rp->lp", magnitude, basis.rounding[:, own])
                 + 4 * (degree + 4) * _EPS * np.einsum("lrp,rp->lp", magnitude, sizes)
                 ).max(axis=1)
-    bounds = truncation + rounding
-    failing = ((truncation > CERTIFIED_TOLERANCE * scales)
-               | (rounding > ROUNDING_ALLOWANCE * scales))
     found_breaks = [breakpoints] * count
     found = [coefficients[k] for k in range(count)]
-    for line in np.flatnonzero(failing):
-        form = IntegralForm(basis.law.compliance, terms[line])
-        alone = certify(form, lo, hi, scale=float(scales[line]), degrees=ALONE_DEGREES)
-        found_breaks[line] = alone.breakpoints
-        found[line] = alone.coefficients.T
-        bounds[line] = alone.bound
-    return LinePieces(tuple(found_breaks), tuple(found), bounds)
+    if scales is not None:
+        failing = ((truncation > CERTIFIED_TOLERANCE * scales)
+                   | (rounding > ROUNDING_ALLOWANCE * scales))
+        for line in np.flatnonzero(failing):
+            form = IntegralForm(basis.law.compliance, terms[line])
+            alone = certify(form, lo, hi, scale=float(scales[line]), degrees=ALONE_DEGREES)
+            found_breaks[line] = alone.breakpoints
+            found[line] = alone.coefficients.T
+            truncation[line] = float(alone.truncation.max())
+            rounding[line] = float(alone.rounding.max())
+    return LinePieces(tuple(found_breaks), tuple(found), truncation, rounding)

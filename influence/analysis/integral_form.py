@@ -67,6 +67,21 @@ class IntegralForm:
         """The form scaled by a constant."""
         return IntegralForm(self.compliance, factor * self.terms)
 
+    # arithmetic as with the polynomial rules of prismatic members: w * rule, sum of rules
+    def __mul__(self, factor: float) -> IntegralForm:
+        return self.times(float(factor))
+
+    __rmul__ = __mul__
+
+    def __add__(self, other: IntegralForm | int) -> IntegralForm:
+        if isinstance(other, int) and other == 0:
+            return self
+        if not isinstance(other, IntegralForm):
+            return NotImplemented
+        return self.plus(other)
+
+    __radd__ = __add__
+
     def _basis(self, a: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
         """Basis values (5, n) and their error estimates: within the depth piece, and carried
         from the piece start."""

@@ -23,6 +23,14 @@ from typing import Any
 
 import numpy as np
 
+from influence.analysis.certified import CERTIFIED_TOLERANCE, certify
+from influence.analysis.haunched_pieces import (
+    ALONE_DEGREES,
+    ROUNDING_ALLOWANCE,
+    line_pieces,
+    member_basis,
+)
+from influence.analysis.integral_form import IntegralForm
 from influence.analysis.responses import Extraction, Response, resolve_many
 from influence.analysis.singularity import TERMS, substitute
 from influence.analysis.solve import Structure, analyse
@@ -153,19 +161,32 @@ class Analysis:
     path: PathGeometry
 
     def lines(self, responses: tuple[Response, ...] | list[Response]) -> list[InfluenceLine]:
-        """Influence lines of many responses, from one multi-column solve."""
+        """Influence lines of many responses, from one multi-column solve.
+
+        Along a prismatic member a line is a cubic between breakpoints; inside a member of
+        varying section it is certified polynomial pieces
+        (:mod:`influence.analysis.haunched_pieces`), whose proven truncation bound is checked
+        against the whole line's scale once the line is assembled.
+        """
         extractions = resolve_many(self.structure, self.path, tuple(responses))
         if not extractions:
             return []
+        count = len(extractions)
         weights = np.stack([e.weights for e in extractions])
-        # every leg's polynomial for every line at once: in the member position a, and in
-        # chainage from the leg's start (the form a leg without the section keeps whole)
-        in_member = [weights[:, used] @ loads for used, loads, _ in self._leg_terms]
-        in_chainage = [base @ change for base, (_, _, change) in
-                       zip(in_member, self._leg_terms, strict=True)]
+        # every leg's load terms for every line at once: polynomials in the member position a
+        # (prismatic) or integral-form terms (varying section), and for a prismatic leg the
+        # polynomial in chainage from the leg's start (the form a leg without the section keeps)
+        in_member = []
+        in_chainage = []
+        for used, loads, change in self._leg_terms:
+            flat = weights[:, used] @ loads.reshape(loads.shape[0], -1)
+            in_member.append(flat.reshape((count, *loads.shape[1:])))
+            in_chainage.append(None if change is None else flat @ change)
         pending: list[tuple[int, int, np.ndarray, float, float]] = []
-        pieces = [self._pieces(i, e, [b[i] for b in in_member], [c[i] for c in in_chainage],
-                               pending) for i, e in enumerate(extractions)]
+        haunched: dict[tuple[int, float, float], list[tuple[int, int, np.ndarray]]] = {}
+        pieces = [self._pieces(i, e, [b[i] for b in in_member],
+                               [None if c is None else c[i] for c in in_chainage],
+                               pending, haunched) for i, e in enumerate(extractions)]
         if pending:
             # the own member's pieces re-expressed in chainage, all in one Taylor shift
             polys = np.array([poly for _, _, poly, _, _ in pending]).T
@@ -173,14 +194,18 @@ class Analysis:
             scales = np.array([scale for _, _, _, _, scale in pending])
             rows = taylor_shift(polys, offsets) * scales ** np.arange(TERMS)[:, None]
             for column, (line, slot, _, _, _) in enumerate(pending):
-                pieces[line][1][:, slot] = rows[:, column]
+                pieces[line][1][slot] = rows[:, column]
+        bounds = self._haunched(haunched, pieces)
         # the size of the terms each line is a sum of: what its round-off is relative to
-        magnitudes = np.zeros(len(extractions))
-        for (used, loads, _), leg in zip(self._leg_terms, self.path.legs, strict=True):
+        magnitudes = np.zeros(count)
+        for (used, loads, change), leg in zip(self._leg_terms, self.path.legs, strict=True):
+            if change is None:
+                continue
             reach = np.abs(loads) * leg.length ** np.arange(loads.shape[1])
             magnitudes = np.maximum(magnitudes, (np.abs(weights[:, used]) @ reach).max(axis=1))
-        batch = Batch.of_arrays([b for b, _ in pieces], [c for _, c in pieces]).cleaned(
-            magnitudes)
+        batch = _assembled(pieces).cleaned(magnitudes)
+        if haunched:
+            batch = self._recertified(batch, haunched, pieces, bounds, magnitudes)
         # the interior region of a moment: a uniform load on the whole path hogs there
         positive, negative = batch.areas()
         hogging = positive + negative < -NOISE * batch.scales * batch.extents
@@ -193,6 +218,54 @@ class Analysis:
             scope_interior=(e.interior_support if e.response.kind == "reaction"
                             else bool(hogging[i]) and e.response.kind == "moment"),
         ) for i, e in enumerate(extractions)]
+
+    def _haunched(self, requests: dict[tuple[int, float, float],
+                                      list[tuple[int, int, np.ndarray]]],
+                  pieces: list[tuple[list[float], list[Any]]],
+                  ) -> dict[tuple[int, int], tuple[float, float]]:
+        """Fill the slots of every stretch of a member of varying section with its certified
+        pieces, for all lines of a stretch at once; returns (line, slot) -> (proven truncation
+        bound, rounding allowance) [line units], to be judged against the line's scale."""
+        found: dict[tuple[int, int], tuple[float, float]] = {}
+        for (index, lo, hi), wanted in requests.items():
+            leg = self.path.legs[index]
+            frame = self.structure.frames[leg.member]
+            basis = member_basis(frame.law)  # type: ignore[arg-type]
+            terms = np.stack([w for _, _, w in wanted])
+            made = line_pieces(basis, terms, lo, hi, None)
+            for k, (line, slot, _) in enumerate(wanted):
+                pieces[line][1][slot] = _in_chainage(made.breakpoints[k], made.coefficients[k],
+                                                     leg.against_member, leg.length)
+                found[(line, slot)] = (float(made.truncation[k]), float(made.rounding[k]))
+        return found
+
+    def _recertified(self, batch: Batch,
+                     requests: dict[tuple[int, float, float], list[tuple[int, int, np.ndarray]]],
+                     pieces: list[tuple[list[float], list[Any]]],
+                     bounds: dict[tuple[int, int], tuple[float, float]],
+                     magnitudes: np.ndarray) -> Batch:
+        """Certify on its own, against its line's scale, every stretch whose shared-basis bound
+        is not within the tolerances of that scale (a line that is a small difference of large
+        terms there), and rebuild those lines."""
+        scales = batch.scales
+        redo: set[int] = set()
+        for (index, lo, hi), wanted in requests.items():
+            leg = self.path.legs[index]
+            law = self.structure.frames[leg.member].law
+            for line, slot, terms in wanted:
+                truncation, rounding = bounds[(line, slot)]
+                scale = float(scales[line])
+                if truncation <= CERTIFIED_TOLERANCE * scale and \
+                        rounding <= ROUNDING_ALLOWANCE * scale:
+                    continue
+                alone = certify(IntegralForm(law.compliance, terms), lo, hi,  # type: ignore[union-attr]
+                                scale=scale, degrees=ALONE_DEGREES)
+                pieces[line][1][slot] = _in_chainage(alone.breakpoints, alone.coefficients.T,
+                                                     leg.against_member, leg.length)
+                redo.add(line)
+        if not redo:
+            return batch
+        return _assembled(pieces).cleaned(magnitudes)
 
     def line(self, response: Response) -> InfluenceLine:
         return self.lines((response,))[0]
@@ -220,13 +293,13 @@ class Analysis:
         lines = self.lines(responses)
         breaks = np.unique(np.concatenate([line.breakpoints for line in lines]))
         middles = 0.5 * (breaks[:-1] + breaks[1:])
-        # every reaction line is a cubic between the same nodes: sum them piece by piece
-        total = np.zeros((TERMS, middles.size))
+        # every reaction line is a piecewise polynomial: sum them on the union of breakpoints
+        degree = max(line.function.degree for line in lines)
+        total = np.zeros((degree + 1, middles.size))
         for line in lines:
             piece = np.searchsorted(line.breakpoints, middles) - 1
-            shifted = [substitute(line.coefficients[p], start - line.breakpoints[p], 1.0)
-                       for p, start in zip(piece, breaks[:-1], strict=True)]
-            total += np.array(shifted).T
+            own = line.function.coeffs[:, piece]
+            total[: own.shape[0]] += taylor_shift(own, breaks[:-1] - line.breakpoints[piece])
         total[0] -= 1.0
         found = Piecewise(breaks, total).extremes()
         # read the sum from the lines themselves, as every output reads them: where the summed
@@ -242,33 +315,41 @@ class Analysis:
             largest, 1.0)
 
     @cached_property
-    def _leg_terms(self) -> list[tuple[np.ndarray, np.ndarray, np.ndarray]]:
+    def _leg_terms(self) -> list[tuple[np.ndarray, np.ndarray, np.ndarray | None]]:
         """Per leg: the unknowns its member's end displacements sit at, its equivalent nodal
-        loads (polynomials in a) there, and the matrix re-expressing a polynomial in a as one in
-        chainage from the leg's start (a = t, or a = L - t walked against the member)."""
-        terms = []
+        loads there (polynomials in a, or integral-form terms for a member of varying section),
+        and the matrix re-expressing a polynomial in a as one in chainage from the leg's start
+        (a = t, or a = L - t walked against the member; None for varying section)."""
+        terms: list[tuple[np.ndarray, np.ndarray, np.ndarray | None]] = []
         for leg in self.path.legs:
             frame = self.structure.frames[leg.member]
             dofs = np.array(frame.dofs)
             used = dofs >= 0
+            if frame.varies:  # integral-form terms; certified into pieces per stretch
+                terms.append((dofs[used], frame.equivalent_loads[used], None))
+                continue
             offset, scale = (leg.length, -1.0) if leg.against_member else (0.0, 1.0)
             change = np.array([substitute(unit, offset, scale) for unit in np.eye(TERMS)])
             terms.append((dofs[used], frame.equivalent_loads[used], change))
         return terms
 
     def _pieces(self, line: int, extraction: Extraction, in_member: list[np.ndarray],
-                in_chainage: list[np.ndarray],
+                in_chainage: list[np.ndarray | None],
                 pending: list[tuple[int, int, np.ndarray, float, float]],
-                ) -> tuple[np.ndarray, np.ndarray]:
-        """(breakpoints, coefficients (TERMS, pieces)) of one line, before cleaning; the pieces
-        of the member holding the section are left to fill, listed in ``pending`` as
-        (line, piece, polynomial in the member position, offset, scale)."""
+                haunched: dict[tuple[int, float, float], list[tuple[int, int, np.ndarray]]],
+                ) -> tuple[list[float], list[Any]]:
+        """(breakpoints, one coefficient row per piece) of one line, before cleaning. Slots left
+        to fill: the prismatic member holding the section, listed in ``pending`` as (line, slot,
+        polynomial in the member position, offset, scale); and every stretch of a member of
+        varying section, listed in ``haunched`` by (leg, from, to) as (line, slot, terms)."""
         breakpoints: list[float] = [0.0]
-        rows: list[np.ndarray | None] = []
+        rows: list[Any] = []
         section = extraction.section_chainage
         tolerance = POSITION * max(self.path.total_length, 1.0)
         for index, leg in enumerate(self.path.legs):
-            if extraction.own_member != leg.member or extraction.own_rules is None:
+            own = extraction.own_member == leg.member and extraction.own_rules is not None
+            varying = in_chainage[index] is None
+            if not own and not varying:
                 rows.append(in_chainage[index])
                 end = leg.end_chainage
                 if section is not None and abs(end - section) <= tolerance:
@@ -277,26 +358,78 @@ class Analysis:
                 continue
             # the member holding the section: its own part changes where the load passes it
             base = in_member[index]
-            s = extraction.own_position
-            behind, ahead = extraction.own_rules
-            member_pieces = [(0.0, s, base + behind), (s, leg.length, base + ahead)]
+            if own:
+                assert extraction.own_rules is not None
+                s = extraction.own_position
+                behind, ahead = extraction.own_rules
+                member_pieces = [(0.0, s, _plus(base, behind)), (s, leg.length, _plus(base, ahead))]
+            else:
+                member_pieces = [(0.0, leg.length, base)]
             for lo, hi, poly in _in_travel_order(member_pieces, leg.against_member, leg.length):
                 if hi - lo <= 0:
                     continue
                 start = leg.start_chainage + lo
-                # member position a = offset + scale * (chainage - start)
-                offset, scale = (leg.length - lo, -1.0) if leg.against_member else (lo, 1.0)
-                pending.append((line, len(rows), poly, offset, scale))
+                if varying:
+                    span = (leg.length - hi, leg.length - lo) if leg.against_member else (lo, hi)
+                    haunched.setdefault((index, *span), []).append((line, len(rows), poly))
+                else:
+                    # member position a = offset + scale * (chainage - start)
+                    offset, scale = (leg.length - lo, -1.0) if leg.against_member else (lo, 1.0)
+                    pending.append((line, len(rows), poly, offset, scale))
                 rows.append(None)
                 end = start + (hi - lo)
                 if section is not None and abs(end - section) <= tolerance:
                     end = section  # the section's own chainage, not a sum that differs by an ulp
                 breakpoints.append(end)
-        coefficients = np.zeros((TERMS, len(rows)))
-        for slot, row in enumerate(rows):
-            if row is not None:
-                coefficients[:, slot] = row
-        return np.array(breakpoints), coefficients
+        return breakpoints, rows
+
+
+def _plus(base: np.ndarray, rule: Any) -> np.ndarray:
+    """A leg's load terms plus the own member's rule: polynomials, or integral-form terms."""
+    return base + (rule.terms if isinstance(rule, IntegralForm) else rule)  # type: ignore[no-any-return]
+
+
+def _in_chainage(breaks: np.ndarray, coeffs: np.ndarray, against: bool,
+                 length: float) -> tuple[np.ndarray, np.ndarray]:
+    """Certified pieces in the member position (breakpoints, (degree+1, pieces)) as pieces in
+    chainage from the leg's start (walked against the member: a = L - t, pieces reversed)."""
+    if not against:
+        return breaks, coeffs
+    widths = np.diff(breaks)[::-1]
+    flipped = taylor_shift(coeffs[:, ::-1], widths)  # p(w - u): shift by w, then u -> -u
+    flipped = flipped * (-1.0) ** np.arange(coeffs.shape[0])[:, None]
+    return length - breaks[::-1], flipped
+
+
+def _assembled(pieces: list[tuple[list[float], list[Any]]]) -> Batch:
+    """The lines as one batch: prismatic rows (cubics) and certified stretches (pieces of
+    higher degree) laid in order, all raised to the highest degree present."""
+    degree = TERMS - 1
+    for _, rows in pieces:
+        for row in rows:
+            if isinstance(row, tuple):
+                degree = max(degree, row[1].shape[0] - 1)
+    breaks_of, coeffs_of = [], []
+    for breakpoints, rows in pieces:
+        breaks: list[float] = [breakpoints[0]]
+        columns: list[np.ndarray] = []
+        for end, row in zip(breakpoints[1:], rows, strict=True):
+            if isinstance(row, tuple):  # certified pieces: (member-relative breaks, coeffs)
+                local_breaks, local = row
+                origin = breaks[-1] - local_breaks[0]
+                breaks.extend((origin + local_breaks[1:-1]).tolist())
+                breaks.append(end)
+                block = np.zeros((degree + 1, local.shape[1]))
+                block[: local.shape[0]] = local
+                columns.extend(block.T)
+            else:
+                column = np.zeros(degree + 1)
+                column[:TERMS] = row
+                columns.append(column)
+                breaks.append(end)
+        breaks_of.append(np.array(breaks))
+        coeffs_of.append(np.array(columns).T)
+    return Batch.of_arrays(breaks_of, coeffs_of)
 
 
 def _in_travel_order(pieces: list[tuple[float, float, np.ndarray]], against: bool,

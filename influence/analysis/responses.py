@@ -177,8 +177,9 @@ def _extraction_parts(structure: Structure, path: PathGeometry,
     on_path = any(leg.member == member for leg in path.legs)
     extra: dict[str, Any] = {"section_chainage": chainage}
     if on_path:
-        extra.update(own_member=member, own_position=position,
-                     own_rules=(np.asarray(behind), np.asarray(ahead)))
+        # polynomials in a (prismatic member) or integral forms (member of varying section)
+        own = (behind, ahead) if frame.varies else (np.asarray(behind), np.asarray(ahead))
+        extra.update(own_member=member, own_position=position, own_rules=own)
     return g, direct, extra
 
 

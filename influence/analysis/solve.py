@@ -58,8 +58,10 @@ import numpy as np
 import scipy.linalg
 
 from influence.analysis.element import MemberLaw, rotation_matrix
+from influence.analysis.haunch import section_of
+from influence.analysis.variable_member import VariableMemberLaw
 from influence.errors import MechanismError
-from influence.model.structure import DIRECTION_WORDS, DIRECTIONS, Model
+from influence.model.structure import DIRECTION_WORDS, DIRECTIONS, Member, Model
 
 MECHANISM_TOLERANCE = 1e-10
 """Smallest eigenvalue [-] of the kinematic matrix (every member's stiffness normalised, scaled to
@@ -83,7 +85,7 @@ class MemberFrame:
     """A member's law, orientation and where its six end displacements sit among the unknowns."""
 
     name: str
-    law: MemberLaw
+    law: MemberLaw | VariableMemberLaw
     cosine: float
     sine: float
     dofs: tuple[int, ...]  # -1 for an end rotation that is not an unknown
@@ -101,11 +103,21 @@ class MemberFrame:
     def global_stiffness(self) -> np.ndarray:
         return self.transform.T @ self.law.stiffness @ self.transform
 
+    @property
+    def varies(self) -> bool:
+        """Whether the member's section varies (its loads are integral forms, not cubics)."""
+        return isinstance(self.law, VariableMemberLaw)
+
     @cached_property
     def equivalent_loads(self) -> np.ndarray:
-        """Global equivalent nodal loads (6 x TERMS polynomials in the member position a)."""
+        """Global equivalent nodal loads: (6, TERMS) polynomials in the member position a for a
+        prismatic member; (6, 5, 4) integral-form terms (see
+        :mod:`influence.analysis.integral_form`) for one of varying section."""
         axial, transverse = self.unit_load_components
         fixed_end = self.law.end_forces_from_load(axial, transverse)
+        if isinstance(self.law, VariableMemberLaw):
+            terms = np.stack([form.terms for form in fixed_end])
+            return -np.einsum("ji,jrc->irc", self.transform, terms)
         return -self.transform.T @ fixed_end
 
 
@@ -204,8 +216,7 @@ def analyse(model: Model) -> Structure:
     frames = {}
     for member in model.members:
         cosine, sine = model.direction_of(member.name)
-        law = MemberLaw(model.length_of(member.name), member.EA, member.EI,
-                        member.release_start, member.release_end, member.sliding_end)
+        law = member_law(member, model.length_of(member.name))
         dofs = tuple(index.get((node, d), -1) for node in (member.start, member.end)
                      for d in DIRECTIONS)
         frames[member.name] = MemberFrame(member.name, law, cosine, sine, dofs)
@@ -247,8 +258,21 @@ def _kinematic(frames: Iterable[MemberFrame], springs: np.ndarray,
     for i, unknown in enumerate(unknowns):
         if unknown.direction == "rz":
             normalised[i] *= typical**2
-    return _assembled((replace(f, law=replace(f.law, EA=f.law.length, EI=f.law.length**3 / 12))
+    return _assembled((replace(f, law=MemberLaw(f.law.length, f.law.length, f.law.length**3 / 12,
+                                                f.law.release_start, f.law.release_end,
+                                                f.law.sliding_end))
                        for f in frames), normalised)
+
+
+def member_law(member: Member, length: float) -> MemberLaw | VariableMemberLaw:
+    """The law of a member of ``length`` [length]: closed-form for a prismatic member, from its
+    flexibility integrals for one of varying section."""
+    if member.variation is None or not member.varies:
+        return MemberLaw(length, member.EA, member.EI, member.release_start, member.release_end,
+                         member.sliding_end)
+    section = section_of(member.variation, length, member.EI, member.EA)
+    return VariableMemberLaw(section, member.release_start, member.release_end,
+                             member.sliding_end)
 
 
 def _factorised(equilibrated: np.ndarray) -> tuple[str, Any]:

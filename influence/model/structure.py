@@ -20,6 +20,7 @@ from dataclasses import dataclass, field
 from functools import cached_property
 
 from influence.errors import ModelError
+from influence.model.variation import SectionVariation
 from vehicles.units import SYSTEMS
 
 Restraint = str | float
@@ -119,7 +120,7 @@ class Node:
 
 @dataclass(frozen=True)
 class Member:
-    """A prismatic member between two named nodes.
+    """A member between two named nodes: prismatic, or of varying section (haunched, tapered).
 
     Args:
         name: member name.
@@ -132,6 +133,8 @@ class Member:
         sliding_end: the end node does not hold the member along its axis (an expansion bearing,
             as under one end of a stringer), so the member carries no axial force.
         deck: whether the travel path may use this member when routed between two nodes.
+        variation: how the section varies along the member (None: prismatic); EA and EI are
+            then those of its prismatic part (haunches) or of its start (a taper).
     """
 
     name: str
@@ -143,6 +146,7 @@ class Member:
     release_end: bool = False
     sliding_end: bool = False
     deck: bool = False
+    variation: SectionVariation | None = None
 
     def __post_init__(self) -> None:
         for label in ("EA", "EI"):
@@ -155,6 +159,11 @@ class Member:
         if self.start == self.end:
             raise ModelError("starts and ends at the same node", item=f"member {self.name}",
                              fix="join two different nodes")
+
+    @property
+    def varies(self) -> bool:
+        """Whether the section varies along the member."""
+        return self.variation is not None and not self.variation.is_prismatic
 
     @property
     def is_bar(self) -> bool:
