@@ -201,6 +201,7 @@ class Model:
                              fix="use " + " or ".join(f'"{name}"' for name in SYSTEMS))
         for name in ("nodes", "members", "path", "hinge_nodes"):
             object.__setattr__(self, name, tuple(getattr(self, name)))
+        _check_names(self)
         _check_unique(self.nodes, "node", self.source)
         _check_unique(self.members, "member", self.source)
         nodes = self.node_index
@@ -245,6 +246,53 @@ class Model:
         a, b = self.node(member.start), self.node(member.end)
         length = self.length_of(member_name)
         return (b.x - a.x) / length, (b.y - a.y) / length
+
+
+NAME_FORBIDDEN = "@:,\"'"
+"""Characters a name may not hold: ``@`` writes MEMBER@DISTANCE, ``:`` a side, ``,`` a list."""
+
+MAX_NAME = 64
+"""The longest name [characters]."""
+
+
+def name_problem(name: object, node: bool = False) -> tuple[str, str] | None:
+    """What is wrong with a node or member name, and the fix; None when it is a good name.
+
+    A name is text of 1 to :data:`MAX_NAME` printable characters without spaces at its ends and
+    without ``@ : , "``; a node name may not read as a number, since a location that reads as
+    a number is a chainage (the README's rule for locations).
+
+    Example:
+        >>> name_problem("P1", node=True) is None, name_problem("20", node=True)[0]
+        (True, "node name '20' reads as a chainage")
+    """
+    if not isinstance(name, str):
+        return f"name {name!r} is not text", f'write it in quotes, such as "{name}"'
+    if not name.strip() or name != name.strip() or len(name) > MAX_NAME or not name.isprintable():
+        return (f"name {name!r} is empty, too long or has spaces at its ends",
+                f"give a name of 1 to {MAX_NAME} printable characters")
+    bad = sorted(set(name) & set(NAME_FORBIDDEN))
+    if bad:
+        return (f"name {name!r} holds {' '.join(bad)}",
+                "leave out @ (it writes MEMBER@DISTANCE), : , and quotes")
+    if node:
+        try:
+            float(name)
+        except ValueError:
+            return None
+        return (f"node name {name!r} reads as a chainage",
+                "start a node name with a letter, such as P20")
+    return None
+
+
+def _check_names(model: Model) -> None:
+    for items, node in ((model.nodes, True), (model.members, False)):
+        for item in items:
+            problem = name_problem(item.name, node)
+            if problem is not None:
+                what = "node" if node else "member"
+                raise ModelError(problem[0], source=model.source, item=f"{what} {item.name}",
+                                 fix=problem[1])
 
 
 def _check_unique(items: tuple[Node, ...] | tuple[Member, ...], what: str, source: str) -> None:
