@@ -10,6 +10,7 @@ import click
 
 from influence.analysis.lines import Analysis, analyse_model
 from influence.cli import main
+from influence.cli.options import PER_SPAN, POSITIVE_LENGTH, not_empty
 from influence.cli.vehicles import parse_adjustments
 from influence.design.envelope import (
     ENVELOPE_CHOICES,
@@ -87,8 +88,9 @@ def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
         click.option("--responses", "responses", multiple=True,
                      type=click.Choice(ENVELOPE_CHOICES),
                      help="Responses to envelope (repeatable)."),
-        click.option("--step", type=float, help="Section spacing along each span [length]."),
-        click.option("--per-span", type=int,
+        click.option("--step", type=POSITIVE_LENGTH,
+                     help="Section spacing along each span [length]."),
+        click.option("--per-span", type=PER_SPAN,
                      help="Divisions of each span (default 10: tenth points)."),
     )):
         command = option(command)
@@ -134,6 +136,7 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
 @main.command("report")
 @click.argument("model_file", type=click.Path(dir_okay=False))
 @click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
+              callback=not_empty,
               help="Folder for report.pdf, figures/ and tables/.")
 @envelope_options
 @click.option("--quiet", is_flag=True, help="No progress bar.")

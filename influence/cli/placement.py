@@ -9,6 +9,7 @@ import click
 from influence.analysis.lines import analyse_model
 from influence.analysis.responses import COMPONENTS, RESPONSE_KINDS, SIDES, Response
 from influence.cli import main
+from influence.cli.options import POSITIVE_LENGTH, TOP
 from influence.cli.vehicles import parse_adjustments
 from influence.design.governing import governing, parse_concurrent
 from influence.design.loading import vehicles_for
@@ -57,7 +58,7 @@ def _render(fmt: str, table, document) -> str:  # type: ignore[no-untyped-def]
               help="Library load model name or vehicle file; repeat for several.")
 @click.option("--adjust", multiple=True, metavar="NAME=VALUE",
               help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
-@click.option("--top", type=int, default=1, show_default=True,
+@click.option("--top", type=TOP, default=1, show_default=True,
               help="How many distinct governing positions to list for each sense.")
 @click.option("--concurrent", "concurrent_text", multiple=True,
               help="Another response under the same loads: RESPONSE@LOCATION[:left|right].")
@@ -105,7 +106,8 @@ def govern_command(model_file: str, response: str, location: str, side: str,
               show_default=True)
 @click.option("--sense", type=click.Choice(["max", "min"]), default="max", show_default=True,
               help="Which extreme the lane and the ranged gaps are set for.")
-@click.option("--step", type=float, help="Step of the lead position (breakpoints added).")
+@click.option("--step", type=POSITIVE_LENGTH,
+              help="Step of the lead position (breakpoints added).")
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False))

@@ -29,6 +29,7 @@ from influence.model.structure import name_problem
 from vehicles.quantities import quantity
 from vehicles.tomlfile import read_toml_file
 
+
 def read_toml(path: str | Path) -> dict[str, Any]:
     """Read a model file: size capped, UTF-8 (a byte-order mark allowed), TOML, every number
     finite and in range; any problem is a one-line ModelError naming the file and place."""

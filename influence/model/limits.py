@@ -5,6 +5,8 @@ refused with its size and the limit.
 Example:
     >>> estimated_sections(path_length=100.0, spans=3, per_span=10)
     30
+    >>> MAX_TABLE_ROWS
+    1000000
     >>> try:
     ...     check_size(estimated_rows(100.0, 1e-8), MAX_TABLE_ROWS, "table rows", "--step")
     ... except ModelError as error:
@@ -17,9 +19,7 @@ from __future__ import annotations
 import math
 
 from influence.errors import ModelError
-
-MAX_TABLE_ROWS = 1_000_000
-"""The most rows of a tabulated line or sweep (one per load or lead position)."""
+from vehicles.limits import MAX_TABLE_ROWS as MAX_TABLE_ROWS
 
 MAX_SECTIONS = 20_000
 """The most envelope sections (the envelope's memory grows linearly with them; 10,000 sections

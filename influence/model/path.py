@@ -101,7 +101,7 @@ class PathGeometry:
 
 def trace(model: Model) -> PathGeometry:
     """Lay the model's path out in chainage, checking that it is one connected chain."""
-    legs = []
+    legs: list[Leg] = []
     chainage = 0.0
     previous_exit = None
     for number, path_leg in enumerate(model.path, start=1):

@@ -2,8 +2,8 @@
 TOML file, with every key checked.
 
 A model file holds the structure (the compact ``[beam]`` or ``[truss]`` form, or ``[[nodes]]``,
-``[[members]]`` and ``[path]``; see :mod:`influence.model.structure_form`), and optionally the design basis
-(``[[loads]]``, ``[[combinations]]``, ``[live_load]``, ``[sections]``; see
+``[[members]]`` and ``[path]``; see :mod:`influence.model.structure_form`), and optionally the
+design basis (``[[loads]]``, ``[[combinations]]``, ``[live_load]``, ``[sections]``; see
 :mod:`influence.model.basis`), the title block (``[project]``), and the assessment tables
 (``[rating]``, ``[[capacity]]``, ``[fatigue]``, ``[[fatigue_detail]]``) that the rating and
 fatigue layers read, checked here by their own readers and against the structure (capacities and
