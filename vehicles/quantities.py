@@ -115,7 +115,8 @@ def quantity(value: Any, key: str, system: str, *, item: str = "", source: str =
     exact = _converted(value, dimension, system, item, source, error)
     if abs(exact) > MAX_MAGNITUDE:
         raise error(f"{value!r} is out of range in {system} units", source=source,
-                    item=item, fix=f"give a {dimension.name} of at most {MAX_MAGNITUDE:g}")
+                    item=item, fix=f"give a {dimension.name} of at most {MAX_MAGNITUDE:g} in "
+                                   f"{system} units")
     return float(exact)
 
 

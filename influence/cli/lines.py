@@ -10,6 +10,8 @@ from influence.analysis.responses import RESPONSE_KINDS, Response
 from influence.cli import main
 from influence.cli.options import POSITIONS, POSITIVE_LENGTH
 from influence.cli.placement import location_options
+from influence.design.input_check import check_model_file
+from influence.model.expand import general_form_toml
 from influence.model.locations import check_chainage
 from influence.model.reader import read_model
 from influence.output.line_tables import line_document, line_table, positions
@@ -23,12 +25,24 @@ from influence.output.tables import render_csv, render_json, render_table
               show_default=True)
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
               help="Draw the structure and its path to a PNG, SVG or PDF file.")
-def check_command(model_file: str, fmt: str, plot_file: str | None) -> None:
-    """Validate MODEL_FILE and summarise it: spans or members, supports, hinges, total path
-    length, degree of static indeterminacy and units."""
-    model = read_model(model_file)
-    summary = summarise(model)
-    click.echo(render_json(summary.as_dict()) if fmt == "json" else render_summary(summary))
+@click.option("--expand", is_flag=True,
+              help="Print the model in the general form (every node and member, TOML) instead "
+                   "of the summary.")
+def check_command(model_file: str, fmt: str, plot_file: str | None, expand: bool) -> None:
+    """Read and check the whole MODEL_FILE (structure, loads, combinations, live-load and
+    section settings, rating and fatigue tables) and summarise it: spans or members, supports,
+    hinges, total path length, degree of static indeterminacy, units, and what was checked."""
+    checked = check_model_file(model_file)
+    model = checked.read.model
+    if expand:
+        click.echo(general_form_toml(checked.read), nl=False)
+    else:
+        summary = summarise(model)
+        if fmt == "json":
+            click.echo(render_json({**summary.as_dict(), "checked": list(checked.checked)}))
+        else:
+            click.echo(render_summary(summary) + "\n\nChecked:\n" + "\n".join(
+                f"  {line}" for line in checked.checked))
     if plot_file:
         from influence.output.figures import draw_structure, save
 

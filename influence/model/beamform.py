@@ -18,7 +18,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from influence.errors import ModelError
-from influence.model.structure import Member, Model, Node, PathLeg, Support
+from influence.model.structure import MIN_LENGTH, Member, Model, Node, PathLeg, Support
 
 POSITION_TOLERANCE = 1e-9
 """Relative distance [-] within which two chainages are taken as the same point."""
@@ -70,6 +70,9 @@ def continuous_beam(
         if not (math.isfinite(span) and span > 0):
             raise ModelError(f"span {number} length {span:g} is not positive", source=source,
                              item="beam.spans", fix="give positive span lengths")
+        if span < MIN_LENGTH:
+            raise ModelError(f"span {number} length {span:g} is less than {MIN_LENGTH:g}",
+                             source=source, item="beam.spans", fix="give real span lengths")
     if len(supports) != len(spans) + 1:
         raise ModelError(
             f"{len(supports)} supports for {len(spans)} spans", source=source,

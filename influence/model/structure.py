@@ -37,6 +37,14 @@ _NAMED_SUPPORTS: dict[str, tuple[Restraint, Restraint, Restraint]] = {
 }
 SUPPORT_KINDS = tuple(_NAMED_SUPPORTS)
 
+MIN_LENGTH = 1.0e-6
+"""The shortest member [length]: a micrometre or less in metres or feet is a typing slip, and
+shorter members overflow the stiffness (it grows with 1 / length^3)."""
+
+BAR_EI = 1.0
+"""The bending stiffness a bar (released at both ends) gets when none is given [force*length^2]:
+a bar carries no moment, so the value changes no response; 1.0 keeps the stiffness well scaled."""
+
 
 def _check_restraint(value: Restraint, direction: str) -> Restraint:
     if isinstance(value, str):
@@ -212,10 +220,12 @@ class Model:
                         f"member {member.name} names unknown node {end!r}", source=self.source,
                         item=f"member {member.name}", fix="define the node or correct the name",
                     )
-            if self.length_of(member.name) <= 0:
+            length = self.length_of(member.name)
+            if not length >= MIN_LENGTH:
                 raise ModelError(
-                    f"member {member.name} has zero length", source=self.source,
-                    item=f"member {member.name}", fix="give its nodes different coordinates",
+                    f"member {member.name} has length {length:g}, less than {MIN_LENGTH:g}",
+                    source=self.source, item=f"member {member.name}",
+                    fix="give its nodes different coordinates",
                 )
         if not self.path:
             raise ModelError("the travel path is empty", source=self.source, item="path",

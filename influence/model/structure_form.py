@@ -56,7 +56,7 @@ from influence.model.fields import (
 )
 from influence.model.keys import BEAM_KEYS, MEMBER_KEYS, NODE_KEYS, PATH_KEYS
 from influence.model.path import orient, route
-from influence.model.structure import Member, Model, Node, PathLeg, Support
+from influence.model.structure import BAR_EI, Member, Model, Node, PathLeg, Support
 from influence.model.trussform import truss_from_table
 from vehicles.units import SYSTEMS
 
@@ -195,7 +195,7 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
                 read_name(required(entry, "end", item, source), f"{item}.end", source),
                 EA=_stiffness(entry, "EA", "A", item, source, units),
                 EI=_stiffness(entry, "EI", "I", item, source, units,
-                              default=None if not bar else 1.0),
+                              default=None if not bar else BAR_EI),
                 release_start=bar or flags["release_start"],
                 release_end=bar or flags["release_end"],
                 sliding_end=flags["sliding_end"], deck=flags["deck"],

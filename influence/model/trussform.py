@@ -49,7 +49,7 @@ from influence.errors import ModelError
 from influence.model.beamform import AXIAL_TO_BENDING
 from influence.model.fields import check_keys, listed, read_integer, read_quantity, read_text
 from influence.model.keys import TRUSS_KEYS
-from influence.model.structure import Member, Model, Node, PathLeg, Support
+from influence.model.structure import BAR_EI, Member, Model, Node, PathLeg, Support
 
 TRUSS_TYPES = ("Pratt", "Howe", "Warren", "Warren with verticals")
 DECKS = ("bottom", "top")
@@ -88,7 +88,7 @@ def truss_from_table(table: dict[str, Any], title: str = "truss", units: str = "
     supports = _supports(table.get("supports", ["pinned", "roller"]), source)
     layout = _Layout(panels, length, depth, kind, deck)
     nodes = layout.nodes(supports)
-    members = [Member(name, start, end, EA=stiffness[group], EI=1.0, release_start=True,
+    members = [Member(name, start, end, EA=stiffness[group], EI=BAR_EI, release_start=True,
                       release_end=True) for name, start, end, group in layout.bars()]
     deck_letter = layout.deck_letter
     stringers = [Member(f"ST{i}", f"{deck_letter}{i - 1}", f"{deck_letter}{i}", EA=stringer_EA,
