@@ -37,6 +37,10 @@ _NAMED_SUPPORTS: dict[str, tuple[Restraint, Restraint, Restraint]] = {
 }
 SUPPORT_KINDS = tuple(_NAMED_SUPPORTS)
 
+MIN_STIFFNESS = 1.0e-6
+"""The smallest member or spring stiffness [force, force*length^2, force/length]: smaller values
+are slips (a millionth of a kN-m^2 or kip-ft^2), and the deflections they give overflow."""
+
 MIN_LENGTH = 1.0e-6
 """The shortest member [length]: a micrometre or less in metres or feet is a typing slip, and
 shorter members overflow the stiffness (it grows with 1 / length^3)."""
@@ -56,11 +60,12 @@ def _check_restraint(value: Restraint, direction: str) -> Restraint:
             )
         return value
     number = float(value)
-    if not (math.isfinite(number) and number > 0):
+    if not (math.isfinite(number) and number >= MIN_STIFFNESS):
         raise ModelError(
-            f"spring stiffness {number:g} is not positive",
+            f"spring stiffness {number:g} is not positive" if not number > 0 else
+            f"spring stiffness {number:g} is too small to be a stiffness",
             item=direction,
-            fix="give a positive stiffness or 'free'",
+            fix=f"give a stiffness of at least {MIN_STIFFNESS:g}, or 'free'",
         )
     return number
 
@@ -160,6 +165,10 @@ class Member:
                     f"{label} = {value:g} is not positive", item=f"member {self.name}",
                     fix=f"give a positive {label}",
                 )
+            if value < MIN_STIFFNESS:
+                raise ModelError(
+                    f"{label} = {value:g} is too small to be a stiffness",
+                    item=f"member {self.name}", fix=f"give {label} of at least {MIN_STIFFNESS:g}")
         if self.start == self.end:
             raise ModelError("starts and ends at the same node", item=f"member {self.name}",
                              fix="join two different nodes")

@@ -361,7 +361,8 @@ class _Reader:
                             "give it as MODEL_FILE; a vehicle file holds a [vehicle] table "
                             "(loads, spacings, units) or [model] with [[case]] tables")
         meta = data.get("vehicle", data.get("model"))
-        if isinstance(meta, dict) and meta.get("units") in SYSTEMS:
+        if isinstance(meta, dict) and isinstance(meta.get("units"), str) \
+                and meta["units"] in SYSTEMS:
             self.units = meta["units"]
         if "vehicle" in data:
             self.table(data, "file", ("vehicle",))
