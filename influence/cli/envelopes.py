@@ -98,7 +98,7 @@ def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
 
 
 @main.command("envelope")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @envelope_options
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)
@@ -134,7 +134,7 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
 
 
 @main.command("report")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
               callback=not_empty,
               help="Folder for report.pdf, figures/ and tables/.")

@@ -20,7 +20,7 @@ from influence.output.tables import render_csv, render_json, render_table
 
 
 @main.command("check")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.option("--format", "fmt", type=click.Choice(["table", "json"]), default="table",
               show_default=True)
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),
@@ -50,7 +50,7 @@ def check_command(model_file: str, fmt: str, plot_file: str | None, expand: bool
 
 
 @main.command("line")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
 @location_options
 @click.option("--positions", "position_list", type=POSITIONS,

@@ -51,7 +51,7 @@ def _render(fmt: str, table, document) -> str:  # type: ignore[no-untyped-def]
 
 
 @main.command("govern")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
 @location_options
 @click.option("--vehicle", "vehicles", multiple=True, required=True,
@@ -95,7 +95,7 @@ def govern_command(model_file: str, response: str, location: str, side: str,
 
 
 @main.command("sweep")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
 @location_options
 @click.option("--vehicle", required=True, help="Library load model name or vehicle file.")
