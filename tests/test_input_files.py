@@ -111,3 +111,24 @@ def test_an_axle_out_of_range_is_refused(tmp_path: Path, axle: str) -> None:
     with pytest.raises(VehicleError) as caught:
         read_load_model(path)
     assert "vehicle.loads[1]" in str(caught.value)
+
+
+def test_one_reader_parses_input_toml() -> None:
+    # every model and vehicle file goes through vehicles.tomlfile; only the packaged standard
+    # tables (read from the installed package, not from users) parse TOML on their own
+    root = Path(__file__).resolve().parent.parent
+    parsers = sorted(str(path.relative_to(root)) for package in ("influence", "vehicles")
+                     for path in (root / package).rglob("*.py") if "tomllib" in path.read_text())
+    assert parsers == ["influence/fatigue/tables.py", "influence/rating/tables.py",
+                       "vehicles/tomlfile.py"]
+    cli = [path.name for path in (root / "influence" / "cli").glob("*.py")
+           if "read_toml" in path.read_text() or "open(" in path.read_text()]
+    assert cli == []
+
+
+def test_a_spectrum_file_is_read_through_the_same_capped_reader(tmp_path: Path) -> None:
+    from influence.fatigue.spectrum import read_spectrum
+
+    path = _write(tmp_path, "truck,gross_weight\n".encode("utf-16"), "spectrum.csv")
+    with pytest.raises(ModelError, match="UTF-16"):
+        read_spectrum(path)
