@@ -18,6 +18,7 @@ from hypothesis import strategies as st
 from influence.design.input_check import check_model_file
 from influence.errors import InfluenceError
 from tests.cli import invoke, refused
+from tests.input_texts import RATING
 from vehicles.errors import VehicleError
 from vehicles.library.files import read_load_model
 
@@ -43,13 +44,7 @@ vehicles = ["HL-93"]
 extra = ["P"]
 [project]
 job_number = "FC-12"
-[rating]
-method = "LRFR"
-material = "steel"
-[[capacity]]
-response = "moment"
-sense = "positive"
-from = 0.0
+""" + RATING + """from = 0.0
 to = 120.0
 nominal = 5400.0
 [fatigue]
@@ -129,12 +124,9 @@ HOSTILE = st.sampled_from([
     "L0", "Pratt", "top", "unlimited"])
 
 
-@settings(max_examples=150, deadline=None, suppress_health_check=[HealthCheck.too_slow])
-@given(data=st.data())
-def test_damaged_model_files_end_in_our_errors(tmp_path_factory: pytest.TempPathFactory,
-                                               data: st.DataObject) -> None:
-    source = data.draw(st.sampled_from(MODEL_FILES), label="example")
-    document = tomllib.loads(source.read_text())
+def _damaged_copy(data: st.DataObject, files: list[Path], folder: Path) -> Path:
+    """One of ``files`` with one to three keys given hostile values or removed, written."""
+    document = tomllib.loads(data.draw(st.sampled_from(files), label="example").read_text())
     for _ in range(data.draw(st.integers(1, 3))):
         spots = _paths(document)
         if not spots:
@@ -142,8 +134,16 @@ def test_damaged_model_files_end_in_our_errors(tmp_path_factory: pytest.TempPath
         spot = data.draw(st.sampled_from(spots), label="place")
         document = _damaged(document, spot, data.draw(HOSTILE, label="value"),
                             data.draw(st.booleans(), label="remove"))
-    path = tmp_path_factory.mktemp("damaged") / "model.toml"
+    path = folder / "damaged.toml"
     path.write_text(tomli_w.dumps(document))
+    return path
+
+
+@settings(max_examples=150, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(data=st.data())
+def test_damaged_model_files_end_in_our_errors(tmp_path_factory: pytest.TempPathFactory,
+                                               data: st.DataObject) -> None:
+    path = _damaged_copy(data, MODEL_FILES, tmp_path_factory.mktemp("damaged"))
     try:
         check_model_file(path)
     except (InfluenceError, VehicleError) as error:
@@ -154,17 +154,7 @@ def test_damaged_model_files_end_in_our_errors(tmp_path_factory: pytest.TempPath
 @given(data=st.data())
 def test_damaged_vehicle_files_end_in_our_errors(tmp_path_factory: pytest.TempPathFactory,
                                                  data: st.DataObject) -> None:
-    source = data.draw(st.sampled_from(VEHICLE_FILES), label="example")
-    document = tomllib.loads(source.read_text())
-    for _ in range(data.draw(st.integers(1, 3))):
-        spots = _paths(document)
-        if not spots:
-            break
-        spot = data.draw(st.sampled_from(spots), label="place")
-        document = _damaged(document, spot, data.draw(HOSTILE, label="value"),
-                            data.draw(st.booleans(), label="remove"))
-    path = tmp_path_factory.mktemp("damaged") / "vehicle.toml"
-    path.write_text(tomli_w.dumps(document))
+    path = _damaged_copy(data, VEHICLE_FILES, tmp_path_factory.mktemp("damaged"))
     try:
         read_load_model(path)
     except VehicleError as error:

@@ -14,56 +14,7 @@ from influence.model.beamform import continuous_beam
 from influence.model.reader import read_model_file
 from influence.model.structure import Member, Model, Node, PathLeg, Support
 from tests.cli import refused
-
-GIRDER = """title = "22 m girder"
-units = "kN-m"
-[beam]
-spans = [10.0, 12.0]
-EI = 2.0e5
-supports = ["pinned", "roller", "roller"]
-names = ["A", "B", "C"]
-"""
-
-FRAME = """[[nodes]]
-name = "A"
-x = 0.0
-y = 0.0
-support = "pinned"
-[[nodes]]
-name = "B"
-x = 10.0
-y = 0.0
-[[nodes]]
-name = "C"
-x = 20.0
-y = 0.0
-support = "roller"
-[[members]]
-name = "AB"
-start = "A"
-end = "B"
-EI = 2.0e5
-EA = 8.0e6
-deck = true
-[[members]]
-name = "BC"
-start = "B"
-end = "C"
-EI = 2.0e5
-EA = 8.0e6
-deck = true
-[path]
-members = ["AB", "BC"]
-"""
-
-RATING = """
-[rating]
-method = "LRFR"
-material = "steel"
-[[capacity]]
-response = "moment"
-sense = "positive"
-"""
+from tests.input_texts import FRAME, GIRDER, RATING
 
 FATIGUE = """
 [fatigue]

@@ -12,42 +12,14 @@ import pytest
 from influence.errors import ModelError
 from influence.model.reader import read_model_file
 from tests.cli import refused
+from tests.input_texts import FRAME
+from tests.input_texts import GIRDER as TEXT_GIRDER
 from vehicles.errors import VehicleError
 from vehicles.library.files import read_load_model
 
 EXAMPLES = Path(__file__).resolve().parent.parent / "examples"
 
-GIRDER = """title = "typed girder"
-units = "kN-m"
-[beam]
-spans = [10.0, 12.0]
-EI = 2.0e5
-supports = ["pinned", "roller", "roller"]
-names = ["A", "B", "C"]
-[live_load]
-vehicles = ["HL-93"]
-"""
-
-FRAME = """[[nodes]]
-name = "A"
-x = 0.0
-y = 0.0
-support = "pinned"
-[[nodes]]
-name = "B"
-x = 10.0
-y = 0.0
-support = "roller"
-[[members]]
-name = "AB"
-start = "A"
-end = "B"
-EI = 2.0e5
-EA = 8.0e6
-deck = true
-[path]
-members = ["AB"]
-"""
+GIRDER = TEXT_GIRDER + '[live_load]\nvehicles = ["HL-93"]\n'
 
 # (file, change, item in the message, words of the message)
 LOOSE = {
@@ -61,7 +33,7 @@ LOOSE = {
                               "expected text"),
     "member end as a number": (FRAME, ('end = "B"', "end = 2"), "member AB.end",
                                "expected text"),
-    "path as one text": (FRAME, ('members = ["AB"]', 'members = "AB"'), "path.members",
+    "path as one text": (FRAME, ('members = ["AB", "BC"]', 'members = "AB"'), "path.members",
                          "expected a list"),
     "support name as a number": (GIRDER, ('names = ["A", "B", "C"]', 'names = ["A", 2, "C"]'),
                                  "beam.names[2]", "expected text"),
@@ -75,7 +47,7 @@ LOOSE = {
                        "beam.spans[2]", "expected a number or a quantity"),
     "vehicles as one text": (GIRDER, ('vehicles = ["HL-93"]', 'vehicles = "HL-93"'),
                              "live_load.vehicles", "expected a list of load model names"),
-    "title as a number": (GIRDER, ('title = "typed girder"', "title = 5"), "title",
+    "title as a number": (GIRDER, ('title = "22 m girder"', "title = 5"), "title",
                           "expected text"),
     "per_span as a float": (GIRDER + "[sections]\nper_span = 2.5\n", ("", ""),
                             "sections.per_span", "whole number"),

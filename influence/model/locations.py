@@ -40,7 +40,7 @@ def check_location(model: Model, path: PathGeometry, text: Any, item: str,
             raise ModelError(f"no member named {member!r}", source=source, item=item,
                              fix="write MEMBER@DISTANCE with a member of the model")
         length = model.length_of(member)
-        distance = _number(distance_text)
+        distance = as_chainage(distance_text)
         slack = CHAINAGE_TOLERANCE * length
         if distance is None or not -slack <= distance <= length + slack:
             raise ModelError(f"{distance_text!r} is not a distance on member {member} "
@@ -49,7 +49,7 @@ def check_location(model: Model, path: PathGeometry, text: Any, item: str,
         return
     if text in model.node_index:
         return
-    chainage = _number(text)
+    chainage = as_chainage(text)
     if chainage is None:
         raise ModelError(f"{text!r} is not a chainage, a node or MEMBER@DISTANCE", source=source,
                          item=item, fix="nodes are: " + ", ".join(
@@ -68,7 +68,8 @@ def check_chainage(path: PathGeometry, chainage: float, item: str, source: str,
                          fix=f"give a chainage from 0 to {total:g}")
 
 
-def _number(text: str) -> float | None:
+def as_chainage(text: str) -> float | None:
+    """The finite number a location text reads as, or None (then it is a name)."""
     try:
         value = float(text)
     except ValueError:
