@@ -265,5 +265,9 @@ def _section(structure: Structure, path: PathGeometry,
                 )
         else:
             raise _unknown_location(structure, location)
-    leg_index, position = path.locate(chainage, response.side)
+    try:
+        leg_index, position = path.locate(chainage, response.side)
+    except LocationError as error:
+        raise LocationError(error.problem, source=model.source, item=location,
+                            fix=error.fix) from None
     return path.legs[leg_index].member, position, chainage

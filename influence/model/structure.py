@@ -41,6 +41,10 @@ MIN_STIFFNESS = 1.0e-6
 """The smallest member or spring stiffness [force, force*length^2, force/length]: smaller values
 are slips (a millionth of a kN-m^2 or kip-ft^2), and the deflections they give overflow."""
 
+MAX_MEMBERS = 2000
+"""The most members of a model: the stiffness is solved as a dense matrix, which for 2,000
+members of three unknowns a node takes some 300 MB."""
+
 MIN_LENGTH = 1.0e-6
 """The shortest member [length]: a micrometre or less in metres or feet is a typing slip, and
 shorter members overflow the stiffness (it grows with 1 / length^3)."""
@@ -218,6 +222,10 @@ class Model:
                              fix="use " + " or ".join(f'"{name}"' for name in SYSTEMS))
         for name in ("nodes", "members", "path", "hinge_nodes"):
             object.__setattr__(self, name, tuple(getattr(self, name)))
+        if len(self.members) > MAX_MEMBERS or len(self.nodes) > MAX_MEMBERS + 1:
+            raise ModelError(f"{len(self.members)} members and {len(self.nodes)} nodes are more "
+                             "than this tool solves", source=self.source, item="members",
+                             fix=f"give at most {MAX_MEMBERS} members")
         _check_names(self)
         _check_unique(self.nodes, "node", self.source)
         _check_unique(self.members, "member", self.source)

@@ -56,13 +56,19 @@ from influence.model.fields import (
 )
 from influence.model.keys import BEAM_KEYS, MEMBER_KEYS, NODE_KEYS, PATH_KEYS
 from influence.model.path import orient, route
-from influence.model.structure import BAR_EI, Member, Model, Node, PathLeg, Support
+from influence.model.structure import (
+    BAR_EI,
+    MAX_MEMBERS,
+    Member,
+    Model,
+    Node,
+    PathLeg,
+    Support,
+)
 from influence.model.trussform import truss_from_table
 from vehicles.units import SYSTEMS
 
 SPRING_WORDS = {"horizontal": "ux", "vertical": "uy", "rotational": "rz"}
-MAX_MEMBERS = 5000
-"""The most members (or spans) a model may have: the stiffness matrix is dense."""
 
 
 def model_from_document(document: dict[str, Any], source: str = "") -> Model:
