@@ -49,7 +49,15 @@ from influence.errors import ModelError
 from influence.model.beamform import AXIAL_TO_BENDING
 from influence.model.fields import check_keys, listed, read_integer, read_quantity, read_text
 from influence.model.keys import TRUSS_KEYS
-from influence.model.structure import BAR_EI, Member, Model, Node, PathLeg, Support
+from influence.model.structure import (
+    BAR_EI,
+    MIN_LENGTH,
+    Member,
+    Model,
+    Node,
+    PathLeg,
+    Support,
+)
 
 TRUSS_TYPES = ("Pratt", "Howe", "Warren", "Warren with verticals")
 DECKS = ("bottom", "top")
@@ -80,6 +88,10 @@ def truss_from_table(table: dict[str, Any], title: str = "truss", units: str = "
                              "about midspan)" if kind != "Warren" else "give 1 or more panels")
     length = _positive(table["panel_length"], "panel_length", source, units)
     depth = _positive(table["depth"], "depth", source, units)
+    for key, value in (("panel_length", length), ("depth", depth)):
+        if value < MIN_LENGTH:
+            raise ModelError(f"{key} = {value:g} is less than {MIN_LENGTH:g}", source=source,
+                             item=f"truss.{key}", fix=f"give a real {key}")
     stiffness = {group: _axial(table, group, source, units) for group in GROUPS
                  if group != "vertical" or kind != "Warren"}
     stringer_EI = _positive(table["stringer_EI"], "stringer_EI", source, units)
