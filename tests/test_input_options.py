@@ -127,3 +127,27 @@ def test_file_section_settings_too_large_or_senseless(tmp_path: Path, settings: 
         read_model_file(path)
     assert caught.value.item == item
     assert item in refused("envelope", str(path), "--vehicle", "HL-93", "--quiet")
+
+
+def test_a_train_with_too_many_ranged_gaps_is_refused(tmp_path: Path) -> None:
+    from vehicles.limits import MAX_RANGED
+
+    count = MAX_RANGED + 1
+    path = tmp_path / "v.toml"
+    path.write_text('[vehicle]\nname = "many"\nunits = "kN-m"\n'
+                    f"loads = [{', '.join(['10'] * (count + 1))}]\n"
+                    f"spacings = [{', '.join(['[1, 3]'] * count)}]\n")
+    with pytest.raises(VehicleError, match=f"{count} ranged gaps and lengths are more than"):
+        load_model(path)
+    assert "ranged gaps" in refused(*GOVERN[:-1], str(path))
+
+
+def test_a_train_of_too_many_axles_is_refused(tmp_path: Path) -> None:
+    from vehicles.train import MAX_ITEMS
+
+    path = tmp_path / "v.toml"
+    path.write_text('[vehicle]\nname = "long"\nunits = "kN-m"\n'
+                    f"loads = [{', '.join(['10'] * (MAX_ITEMS + 1))}]\n"
+                    f"spacings = [{', '.join(['1.5'] * MAX_ITEMS)}]\n")
+    with pytest.raises(VehicleError, match="axles and patches are more than"):
+        load_model(path)

@@ -35,6 +35,9 @@ MAX_MAGNITUDE = 1.0e15
 stiffness in kN and m or kip and ft, and far enough below the float range that sums, squares and
 products of such numbers cannot overflow."""
 
+MAX_ENTRIES = 100_000
+"""The most entries of one array in an input file."""
+
 MAX_INTEGER = 2**53
 """Integers beyond this are not held exactly as floats (TOML allows 64-bit integers)."""
 
@@ -129,6 +132,9 @@ def check_numbers(value: Any, source: str, error: ErrorType, where: str = "") ->
         for key, inner in value.items():
             check_numbers(inner, source, error, f"{where}.{key}" if where else str(key))
     elif isinstance(value, list):
+        if len(value) > MAX_ENTRIES:
+            raise error(f"an array of {len(value):,} entries is more than {MAX_ENTRIES:,}",
+                        source=source, item=where, fix="give a model or vehicle of a real size")
         for index, inner in enumerate(value, start=1):
             check_numbers(inner, source, error, f"{where}[{index}]")
     elif isinstance(value, bool):

@@ -54,6 +54,7 @@ from pathlib import Path
 from typing import Any, TypeVar
 
 from vehicles.errors import VehicleError
+from vehicles.limits import MAX_RANGED
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
 from vehicles.quantities import KEY_DIMENSIONS, quantity
 from vehicles.tomlfile import parse_toml_text, read_toml_file
@@ -300,6 +301,11 @@ class _Reader:
             train = self.train(sub, train_name, f"{where} train", named)
         elif has_inline:
             train = self.train(raw, name, where, named)
+        if train is not None and len(train.ranged_values) > MAX_RANGED:
+            raise self.fail(f"{where} train", f"{len(train.ranged_values)} ranged gaps and "
+                            f"lengths are more than {MAX_RANGED}",
+                            "fix some of them: the search for the governing values grows as 3 "
+                            "to the power of their number")
         values = {field: self.number(raw[key], f"{where} {key}",
                                      key=key if key in KEY_DIMENSIONS else None)
                   for key, field in _CASE_FIELDS.items() if key in raw}
