@@ -1,4 +1,5 @@
-"""The structure in a model file: the compact beam form or the general form of nodes and members.
+"""The structure in a model file: the compact beam form, the compact truss form
+(:mod:`influence.model.trussform`) or the general form of nodes and members.
 
 Beam form::
 
@@ -32,7 +33,19 @@ General form::
     [path]
     members = ["deck1", "deck2"]      # or start = "A" and end = "E" through deck members
 
-Every problem raises :class:`~influence.errors.ModelError` naming the file, the item and the fix.
+Lengths, stiffnesses and springs take a plain number in the file's units or a quantity such as
+``"110 ft"`` or ``"29000 ksi"`` (:mod:`vehicles.quantities`); flags are TOML booleans and names
+quoted text (:mod:`influence.model.fields`). Every problem raises
+:class:`~influence.errors.ModelError` naming the file, the item and the fix.
+
+Example:
+    >>> model = model_from_document({"units": "kip-ft", "beam": {
+    ...     "spans": ["40 ft", "12.192 m"], "EI": "4.176e7 kip*in^2",
+    ...     "supports": ["pinned", "roller", "roller"]}})
+    >>> [round(model.length_of(m.name), 9) for m in model.members]
+    [40.0, 40.0]
+    >>> round(model.members[0].EI, 6)   # kip-ft^2
+    290000.0
 """
 
 from __future__ import annotations
