@@ -7,9 +7,13 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
+from click.testing import CliRunner
+from hypothesis import given, settings
+from hypothesis import strategies as st
 
 from influence.analysis.lines import analyse_model
 from influence.analysis.responses import Response
+from influence.cli import main
 from influence.design.sections import envelope_sections
 from influence.errors import InfluenceError, ModelError
 from influence.model.limits import MAX_SECTIONS, MAX_TABLE_ROWS
@@ -151,3 +155,18 @@ def test_a_train_of_too_many_axles_is_refused(tmp_path: Path) -> None:
                     f"spacings = [{', '.join(['1.5'] * MAX_ITEMS)}]\n")
     with pytest.raises(VehicleError, match="axles and patches are more than"):
         load_model(path)
+
+
+@settings(max_examples=60, deadline=None)
+@given(option=st.sampled_from(["--step", "--positions", "--at"]),
+       text=st.text(alphabet="0123456789.,-+eEnaifP1@span ", max_size=12))
+def test_any_option_text_ends_in_a_result_or_one_line(option: str, text: str) -> None:
+    args = ["line", OVERPASS, "moment", "--at", "P1"]
+    args = args[:-1] + [text] if option == "--at" else [*args, option, text]
+    result = CliRunner().invoke(main, args)
+    assert result.exception is None or isinstance(result.exception, SystemExit), (
+        f"{args}: {result.exception!r}")
+    if result.exit_code == 1:
+        assert result.output.startswith("error: ") and result.output.count("\n") == 1
+    else:
+        assert result.exit_code in (0, 2)

@@ -211,10 +211,18 @@ def _sections(given: dict[str, Any], model: Model, path: PathGeometry, units: st
     check_size(estimated_sections(path.total_length, spans, per_span, step), MAX_SECTIONS,
                "envelope sections", "sections.step" if step else "sections.per_span", source,
                fix="give a coarser step or fewer divisions")
-    extra = read_texts(given.get("extra", []), "sections.extra", source)
+    extra = _locations(given.get("extra", []), "sections.extra", source)
     for number, location in enumerate(extra, start=1):
         check_location(model, path, location, f"sections.extra[{number}]", source)
     return SectionSettings(per_span=per_span, step=step, extra=extra)
+
+
+def _locations(value: Any, item: str, source: str) -> tuple[str, ...]:
+    """A list of locations: text, or a number standing for a chainage."""
+    if isinstance(value, list):
+        value = [repr(float(entry)) if isinstance(entry, int | float) and not isinstance(
+            entry, bool) else entry for entry in value]
+    return read_texts(value, item, source)
 
 
 def _positive(value: Any, item: str, source: str) -> float:
