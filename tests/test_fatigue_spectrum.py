@@ -90,5 +90,5 @@ def test_unknown_target_units():
 
 
 def test_missing_file(tmp_path):
-    with pytest.raises(ModelError, match="cannot read the spectrum"):
+    with pytest.raises(ModelError, match="file not found"):
         read_spectrum(tmp_path / "none.csv")

@@ -131,7 +131,7 @@ members = ["AB", "BC"]
 @pytest.mark.parametrize(("change", "error", "expected"), [
     (('members = ["AB", "BC"]', 'members = ["AB", "XY"]'), ModelError, "unknown member 'XY'"),
     (('end = "C", EI', 'end = "Q", EI'), ModelError, "unknown node 'Q'"),
-    (('x = 20.0, y = 0.0', 'x = 10.0, y = 0.0'), ModelError, "zero length"),
+    (('x = 20.0, y = 0.0', 'x = 10.0, y = 0.0'), ModelError, "length 0, less than"),
     (('name = "C", x', 'name = "B", x'), ModelError, "node name 'B' is used twice"),
     (('[path]\nmembers = ["AB", "BC"]', '[path]\nstart = "A"\nend = "C"'), ModelError,
      "not on any deck member"),

@@ -167,6 +167,10 @@ SET_QUANTITIES = ("dynamic_allowance", "uniform_dynamic_allowance", "lane_dynami
 """What an adjustment may set: the allowance on axles, on the train's patches, on lane loads."""
 
 
+MAX_ADJUSTMENT = 1000.0
+"""The largest value an adjustment takes: adjustments are factors and fractions [-]."""
+
+
 @dataclass(frozen=True)
 class Adjustment:
     """A named input of a load model that the user may change, such as EN 1991-2's alpha.
@@ -202,8 +206,9 @@ class Adjustment:
         if not self.scales and not self.sets:
             raise VehicleError("the adjustment scales and sets nothing",
                                item=f"adjustment {self.name}", fix="give scales or sets")
-        if not math.isfinite(self.value) or self.value < 0 or (self.scales and self.value == 0):
-            need = "> 0" if self.scales else ">= 0"
+        if not math.isfinite(self.value) or self.value < 0 or (
+                self.scales and self.value == 0) or self.value > MAX_ADJUSTMENT:
+            need = ("> 0" if self.scales else ">= 0") + f" and at most {MAX_ADJUSTMENT:g}"
             raise VehicleError(f"value {self.value:g} is not allowed",
                                item=f"adjustment {self.name}", fix=f"give a value {need}")
 

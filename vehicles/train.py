@@ -151,6 +151,9 @@ class Arrangement:
         return float(starts.min()), float(ends.max())
 
 
+MAX_ITEMS = 1000
+"""The most axles and patches of one train (a long freight train has a few hundred)."""
+
 @dataclass(frozen=True)
 class Train:
     """An ordered set of axles and patches, front to rear.
@@ -170,6 +173,10 @@ class Train:
         if self.items[0].gap != 0.0:
             # the first gap means nothing; zeroing it lets equal trains compare equal
             object.__setattr__(self, "items", (_with_gap(self.items[0], 0.0), *self.items[1:]))
+        if len(self.items) > MAX_ITEMS:
+            raise VehicleError(f"{len(self.items)} axles and patches are more than {MAX_ITEMS}",
+                               item=self.name, fix="split the train, or give a uniform load for "
+                               "a long run of equal axles")
         for index, item in enumerate(self.items):
             inner = 0 < index < len(self.items) - 1
             if isinstance(item, Patch) and item.length is None and inner:

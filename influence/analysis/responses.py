@@ -18,7 +18,6 @@ Example:
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from typing import Any
 
@@ -26,6 +25,7 @@ import numpy as np
 
 from influence.analysis.solve import Structure
 from influence.errors import LocationError, ModelError
+from influence.model.locations import as_chainage
 from influence.model.path import CHAINAGE_TOLERANCE, PathGeometry
 
 RESPONSE_KINDS = ("reaction", "shear", "moment", "axial", "deflection", "rotation")
@@ -188,11 +188,7 @@ def _is_section(location: str) -> bool:
 
 
 def _as_chainage(location: str) -> float | None:
-    try:
-        value = float(location)
-    except ValueError:
-        return None
-    return value if math.isfinite(value) else None
+    return as_chainage(location)
 
 
 def _node_name(structure: Structure, path: PathGeometry, location: str) -> str | None:
@@ -270,5 +266,9 @@ def _section(structure: Structure, path: PathGeometry,
                 )
         else:
             raise _unknown_location(structure, location)
-    leg_index, position = path.locate(chainage, response.side)
+    try:
+        leg_index, position = path.locate(chainage, response.side)
+    except LocationError as error:
+        raise LocationError(error.problem, source=model.source, item=location,
+                            fix=error.fix) from None
     return path.legs[leg_index].member, position, chainage

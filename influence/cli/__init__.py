@@ -24,6 +24,12 @@ class _OneLineErrors(click.Group):
                 raise
             click.echo(f"error: {error}", err=True)
             sys.exit(1)
+        except MemoryError:
+            if ctx.obj and ctx.obj.get("debug"):
+                raise
+            click.echo("error: the request is too large for this machine's memory (ask for "
+                       "fewer sections, positions or rows)", err=True)
+            sys.exit(1)
 
 
 @click.group(cls=_OneLineErrors)

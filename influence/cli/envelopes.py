@@ -10,6 +10,7 @@ from typing import Any
 import click
 
 from influence.cli import main
+from influence.cli.options import PER_SPAN, POSITIVE_LENGTH, not_empty
 from influence.cli.vehicles import parse_adjustments
 from influence.design.bars import default_responses
 from influence.design.envelope import ENVELOPE_CHOICES
@@ -66,8 +67,9 @@ def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
         click.option("--responses", "responses", multiple=True,
                      type=click.Choice(ENVELOPE_CHOICES),
                      help="Responses to envelope (repeatable)."),
-        click.option("--step", type=float, help="Section spacing along each span [length]."),
-        click.option("--per-span", type=int,
+        click.option("--step", type=POSITIVE_LENGTH,
+                     help="Section spacing along each span [length]."),
+        click.option("--per-span", type=PER_SPAN,
                      help="Divisions of each span (default 10: tenth points)."),
     )):
         command = option(command)
@@ -75,7 +77,7 @@ def envelope_options(command: Callable[..., None]) -> Callable[..., None]:
 
 
 @main.command("envelope")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @envelope_options
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)
@@ -110,8 +112,9 @@ def envelope_command(model_file: str, vehicles: tuple[str, ...], adjust: tuple[s
 
 
 @main.command("report")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.option("--out", "out_dir", required=True, type=click.Path(),
+              callback=not_empty,
               help="Folder for report.pdf, figures/ and tables/.")
 @envelope_options
 @click.option("--quiet", is_flag=True, help="No progress bar.")

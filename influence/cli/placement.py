@@ -8,6 +8,7 @@ import click
 
 from influence.analysis.responses import COMPONENTS, RESPONSE_KINDS, SIDES, Response
 from influence.cli import main
+from influence.cli.options import POSITIVE_LENGTH, TOP
 from influence.cli.vehicles import parse_adjustments
 from influence.design.from_file import governing_from_file, placement_sweeps, sweeps_from_file
 from influence.design.governing import parse_concurrent
@@ -50,7 +51,7 @@ PER_LANE_HELP = ("One lane's values: leave out the model file's live_load distri
 
 
 @main.command("govern")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
 @location_options
 @click.option("--vehicle", "vehicles", multiple=True,
@@ -58,7 +59,7 @@ PER_LANE_HELP = ("One lane's values: leave out the model file's live_load distri
                    "file's live_load.vehicles).")
 @click.option("--adjust", multiple=True, metavar="NAME=VALUE",
               help="Set a load model's adjustment, such as alpha=1.21 (repeatable).")
-@click.option("--top", type=int, default=1, show_default=True,
+@click.option("--top", type=TOP, default=1, show_default=True,
               help="How many distinct governing positions to list for each sense (a placement and "
                    "its mirror image on a symmetric line count once).")
 @click.option("--concurrent", "concurrent_text", multiple=True,
@@ -100,7 +101,7 @@ def govern_command(model_file: str, response: str, location: str, side: str,
 
 
 @main.command("sweep")
-@click.argument("model_file", type=click.Path(dir_okay=False))
+@click.argument("model_file", type=click.Path())
 @click.argument("response", type=click.Choice(RESPONSE_KINDS))
 @location_options
 @click.option("--vehicle", required=True, help="Library load model name or vehicle file.")
@@ -111,7 +112,8 @@ def govern_command(model_file: str, response: str, location: str, side: str,
               show_default=True)
 @click.option("--sense", type=click.Choice(["max", "min"]), default="max", show_default=True,
               help="Which extreme the lane and the ranged gaps are set for.")
-@click.option("--step", type=float, help="Step of the lead position (breakpoints added).")
+@click.option("--step", type=POSITIVE_LENGTH,
+              help="Step of the lead position (breakpoints added).")
 @click.option("--per-lane", is_flag=True, help=PER_LANE_HELP)
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)

@@ -17,6 +17,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from influence.model.limits import MAX_SECTIONS, check_size, estimated_sections
 from influence.model.path import CHAINAGE_TOLERANCE, PathGeometry
 from influence.model.structure import Model
 
@@ -72,6 +73,9 @@ def envelope_sections(model: Model, path: PathGeometry, *, per_span: int = 10,
                       step: float | None = None, extra: tuple[str, ...] = ()) -> list[Section]:
     """The sections of an envelope, in chainage order, then supports off the path (for their
     reactions) and the extra sections."""
+    stretches = spans(model, path)
+    check_size(estimated_sections(path.total_length, len(stretches), per_span, step),
+               MAX_SECTIONS, "envelope sections", "step" if step else "per_span", model.source)
     tolerance = CHAINAGE_TOLERANCE * max(path.total_length, 1.0)
     special: dict[float, str] = {}  # chainage -> node name: supports and hinges on the path
     for node_name, at in path.node_chainages.items():
@@ -80,7 +84,6 @@ def envelope_sections(model: Model, path: PathGeometry, *, per_span: int = 10,
                 model, node_name):
             special[at] = node_name
     found: list[Section] = []
-    stretches = spans(model, path)
     for span in stretches:
         count = max(int(np.ceil(span.length / step - 1e-9)), 1) if step else per_span
         points = span.start + span.length * np.arange(count + 1) / count

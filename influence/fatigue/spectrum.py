@@ -37,6 +37,7 @@ import numpy as np
 
 from influence.errors import ModelError
 from influence.fatigue.units import FORCE_KN, LENGTH_M, SYSTEMS
+from vehicles.tomlfile import decoded, read_capped
 
 FREQUENCIES = ("per_day", "count")
 """Names of the frequency column: trucks a day, or trucks observed."""
@@ -109,11 +110,8 @@ class TrafficSpectrum:
 def read_spectrum(path: str | Path, units: str | None = None) -> TrafficSpectrum:
     """Read a spectrum file (see the module note), converted to ``units`` if given."""
     source = str(path)
-    try:
-        text = Path(path).read_text(encoding="utf-8-sig")
-    except (OSError, UnicodeDecodeError) as error:
-        raise ModelError(f"cannot read the spectrum: {error}", source=source,
-                         fix="give a readable CSV file") from None
+    what = "spectrum CSV file"
+    text = decoded(read_capped(path, ModelError, what), source, ModelError, what)
     return parse_spectrum(text, source, units)
 
 

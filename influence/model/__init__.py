@@ -1,2 +1,3 @@
 """The structure as the user describes it: nodes, members, supports, the travel path, the
-compact beam form, and the one reader of model files (structure and design basis together)."""
+compact beam and truss forms, typed keys and quantities, and the one reader of model files
+(structure, design basis, project, rating and fatigue tables together)."""

@@ -38,22 +38,29 @@ allowance, times the distribution and multiple presence factors).
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 from typing import Any
 
 from influence.errors import ModelError
-from influence.model.fields import check_keys, read_number
+from influence.model.fields import (
+    check_keys,
+    read_integer,
+    read_number,
+    read_quantity,
+    read_text,
+    read_texts,
+    table,
+    tables,
+)
+from influence.model.keys import COMBINATION_KEYS, LIVE_KEYS, LOAD_KEYS, SECTION_KEYS
+from influence.model.limits import MAX_PER_SPAN, MAX_SECTIONS, check_size, estimated_sections
+from influence.model.locations import check_chainage, check_location
+from influence.model.path import CHAINAGE_TOLERANCE, PathGeometry, trace
 from influence.model.structure import Model
 
 LIVE_LOAD = "LL"
 """The name combinations use for the live load."""
-
-LOAD_KEYS = {"name", "load", "uniform", "members", "from", "to", "point", "at"}
-COMBINATION_KEYS = {"name", "factors"}
-LIVE_KEYS = {"distribution", "multiple_presence", "vehicles", "deflection_limit", "adjust",
-             "deflection_vehicles"}
-SECTION_KEYS = {"per_span", "step", "extra"}
-
 
 @dataclass(frozen=True)
 class DeadLoad:
@@ -130,10 +137,14 @@ class DesignBasis:
 
 
 def design_from_document(document: dict[str, Any], model: Model, source: str = "") -> DesignBasis:
-    loads = tuple(_dead_load(entry, number, model, source)
-                  for number, entry in enumerate(_entries(document, "loads", source), start=1))
+    """The design basis of a parsed model file, every value typed and every place on the
+    structure (loads, sections) checked against it."""
+    path = trace(model)
+    units = model.units
+    loads = tuple(_dead_load(entry, number, model, path, source)
+                  for number, entry in enumerate(tables(document, "loads", source), start=1))
     combinations = tuple(_combination(entry, number, source) for number, entry in
-                         enumerate(_entries(document, "combinations", source), start=1))
+                         enumerate(tables(document, "combinations", source), start=1))
     names = [c.name for c in combinations]
     if len(set(names)) != len(names):
         raise ModelError("a combination name is used twice", source=source, item="combinations",
@@ -147,49 +158,71 @@ def design_from_document(document: dict[str, Any], model: Model, source: str = "
                     item=f"combination {combination.name}",
                     fix="use the load names of [[loads]] (" + ", ".join(sorted(known)) + ")",
                 )
-    live_table = _table(document.get("live_load", {}), "live_load", LIVE_KEYS, source)
-    limit = live_table.get("deflection_limit")
-    live = LiveLoadSettings(
-        distribution=_positive(live_table.get("distribution", 1.0), "live_load.distribution",
-                               source),
-        multiple_presence=_positive(live_table.get("multiple_presence", 1.0),
-                                    "live_load.multiple_presence", source),
-        vehicles=tuple(str(v) for v in live_table.get("vehicles", [])),
-        deflection_vehicles=tuple(str(v) for v in live_table.get("deflection_vehicles", [])),
-        deflection_limit=None if limit is None else _positive(
-            limit, "live_load.deflection_limit", source),
-        adjust={str(k): read_number(v, f"live_load.adjust.{k}", source) for k, v in
-                _table(live_table.get("adjust", {}), "live_load.adjust",
-                       set(live_table.get("adjust", {})), source).items()},
-    )
-    section_table = _table(document.get("sections", {}), "sections", SECTION_KEYS, source)
-    per_span = section_table.get("per_span", 10)
-    if not isinstance(per_span, int) or isinstance(per_span, bool) or per_span < 1:
-        raise ModelError(f"per_span = {per_span!r}", source=source, item="sections.per_span",
-                         fix="give a whole number of divisions, 1 or more (10: tenth points)")
-    step = section_table.get("step")
-    sections = SectionSettings(
-        per_span=per_span,
-        step=None if step is None else _positive(step, "sections.step", source),
-        extra=tuple(str(e) for e in section_table.get("extra", [])),
-    )
+    live = _live_load(table(document.get("live_load"), "live_load", source), source)
+    sections = _sections(table(document.get("sections"), "sections", source), model, path,
+                         units, source)
     return DesignBasis(loads, combinations, live, sections)
 
 
-def _entries(document: dict[str, Any], key: str, source: str) -> list[dict[str, Any]]:
-    value = document.get(key, [])
-    if not isinstance(value, list) or not all(isinstance(v, dict) for v in value):
-        raise ModelError(f"{key} must be a list of tables", source=source, item=key,
-                         fix=f"write each entry as [[{key}]]")
-    return value
+def _live_load(given: dict[str, Any], source: str) -> LiveLoadSettings:
+    check_keys(given, LIVE_KEYS, "live_load", source)
+    limit = given.get("deflection_limit")
+    adjust = table(given.get("adjust"), "live_load.adjust", source)
+    return LiveLoadSettings(
+        distribution=_positive(given.get("distribution", 1.0), "live_load.distribution",
+                               source),
+        multiple_presence=_positive(given.get("multiple_presence", 1.0),
+                                    "live_load.multiple_presence", source),
+        vehicles=_model_names(given.get("vehicles", []), "live_load.vehicles", source),
+        deflection_vehicles=_model_names(given.get("deflection_vehicles", []),
+                                         "live_load.deflection_vehicles", source),
+        deflection_limit=None if limit is None else _positive(
+            limit, "live_load.deflection_limit", source),
+        adjust={str(k): read_number(v, f"live_load.adjust.{k}", source)
+                for k, v in adjust.items()},
+    )
 
 
-def _table(value: Any, item: str, allowed: set[str], source: str) -> dict[str, Any]:
-    if not isinstance(value, dict):
-        raise ModelError(f"{item} must be a table", source=source, item=item,
-                         fix=f"write it as [{item}]")
-    check_keys(value, allowed, item, source)
-    return value
+def _model_names(value: Any, item: str, source: str) -> tuple[str, ...]:
+    if isinstance(value, str):
+        raise ModelError(f"expected a list of load model names, got the text {value!r}",
+                         source=source, item=item,
+                         fix=f'write a list, even of one: ["{value}"]')
+    names = read_texts(value, item, source)
+    for number, name in enumerate(names, start=1):
+        if not name.strip():
+            raise ModelError("an empty load model name", source=source,
+                             item=f"{item}[{number}]",
+                             fix="give a library name such as \"HL-93\" or a vehicle file")
+    return names
+
+
+def _sections(given: dict[str, Any], model: Model, path: PathGeometry, units: str,
+              source: str) -> SectionSettings:
+    check_keys(given, SECTION_KEYS, "sections", source)
+    per_span = read_integer(given.get("per_span", 10), "sections.per_span", source)
+    check_size(per_span, MAX_PER_SPAN, "divisions of a span", "sections.per_span", source,
+               fix=f"give at most {MAX_PER_SPAN} divisions")
+    step = given.get("step")
+    if step is not None:
+        step = _positive(read_quantity(step, "step", "sections.step", source, units),
+                         "sections.step", source)
+    spans = 1 + sum(1 for leg in path.legs[:-1] if model.node(leg.exit_node).support.is_support)
+    check_size(estimated_sections(path.total_length, spans, per_span, step), MAX_SECTIONS,
+               "envelope sections", "sections.step" if step else "sections.per_span", source,
+               fix="give a coarser step or fewer divisions")
+    extra = _locations(given.get("extra", []), "sections.extra", source)
+    for number, location in enumerate(extra, start=1):
+        check_location(model, path, location, f"sections.extra[{number}]", source)
+    return SectionSettings(per_span=per_span, step=step, extra=extra)
+
+
+def _locations(value: Any, item: str, source: str) -> tuple[str, ...]:
+    """A list of locations: text, or a number standing for a chainage."""
+    if isinstance(value, list):
+        value = [repr(float(entry)) if isinstance(entry, int | float) and not isinstance(
+            entry, bool) else entry for entry in value]
+    return read_texts(value, item, source)
 
 
 def _positive(value: Any, item: str, source: str) -> float:
@@ -200,22 +233,26 @@ def _positive(value: Any, item: str, source: str) -> float:
     return number
 
 
-def _dead_load(entry: dict[str, Any], number: int, model: Model, source: str) -> DeadLoad:
+def _dead_load(entry: dict[str, Any], number: int, model: Model, path: PathGeometry,
+               source: str) -> DeadLoad:
     item = f"loads[{number}]"
-    _table(entry, item, LOAD_KEYS, source)
-    name = str(entry.get("name", f"load {number}"))
+    check_keys(entry, LOAD_KEYS, item, source)
+    name = read_text(entry.get("name", f"load {number}"), f"{item}.name", source)
     item = f"load {name!r}"
     if "load" not in entry:
         raise ModelError("no load name", source=source, item=item,
                          fix='add load = "DC" (or DW, ...): the name combinations factor')
-    load = str(entry["load"])
+    load = read_text(entry["load"], f"{item}.load", source)
+    if not load.strip():
+        raise ModelError("an empty load name", source=source, item=item,
+                         fix='give load = "DC" (or DW, ...)')
     if load == LIVE_LOAD:
         raise ModelError(f"{LIVE_LOAD} is the live load's name", source=source, item=item,
                          fix="give permanent loads another name, such as DC or DW")
     if ("uniform" in entry) == ("point" in entry):
         raise ModelError("give either uniform or point", source=source, item=item,
                          fix="uniform = intensity along the path, or point = force with at")
-    path_members = {leg.member for leg in model.path}
+    units = model.units
     if "point" in entry:
         if "at" not in entry:
             raise ModelError("a point load needs its chainage", source=source, item=item,
@@ -224,27 +261,43 @@ def _dead_load(entry: dict[str, Any], number: int, model: Model, source: str) ->
             if key in entry:
                 raise ModelError(f"{key!r} does not apply to a point load", source=source,
                                  item=item, fix="use at = chainage")
-        return DeadLoad(name, load, point=_positive(entry["point"], item, source),
-                        at=read_number(entry["at"], item, source))
-    members = tuple(str(m) for m in entry.get("members", []))
+        force = _positive(read_quantity(entry["point"], "point", f"{item}.point", source,
+                                        units), f"{item}.point", source)
+        at = read_quantity(entry["at"], "at", f"{item}.at", source, units)
+        check_chainage(path, at, f"{item}.at", source, what="point load at")
+        return DeadLoad(name, load, point=force, at=min(max(at, 0.0), path.total_length))
+    path_members = [leg.member for leg in path.legs]
+    members = read_texts(entry.get("members", []), f"{item}.members", source)
     for member in members:
         if member not in path_members:
             raise ModelError(f"member {member!r} is not on the path", source=source, item=item,
-                             fix="dead loads act on path members: " + ", ".join(
-                                 leg.member for leg in model.path))
-    start = read_number(entry["from"], item, source) if "from" in entry else None
-    end = read_number(entry["to"], item, source) if "to" in entry else None
+                             fix="dead loads act on path members: " + ", ".join(path_members))
+    start = read_quantity(entry["from"], "from", f"{item}.from", source, units) \
+        if "from" in entry else None
+    end = read_quantity(entry["to"], "to", f"{item}.to", source, units) if "to" in entry else None
+    for key, value in (("from", start), ("to", end)):
+        if value is not None:
+            check_chainage(path, value, f"{item}.{key}", source, what=key)
     if start is not None and end is not None and end <= start:
         raise ModelError(f"from {start:g} to {end:g} is empty", source=source, item=item,
                          fix="give from < to")
-    return DeadLoad(name, load, uniform=_positive(entry["uniform"], item, source),
-                    members=members, start=start, end=end)
+    intensity = _positive(read_quantity(entry["uniform"], "uniform", f"{item}.uniform", source,
+                                        units), f"{item}.uniform", source)
+    if members and (start is not None or end is not None):
+        lo = -math.inf if start is None else start
+        hi = math.inf if end is None else end
+        slack = CHAINAGE_TOLERANCE * max(path.total_length, 1.0)
+        if not any(min(leg.end_chainage, hi) - max(leg.start_chainage, lo) > slack
+                   for leg in path.legs if leg.member in members):
+            raise ModelError("from and to lie outside the members named", source=source,
+                             item=item, fix="give a range that covers part of those members")
+    return DeadLoad(name, load, uniform=intensity, members=members, start=start, end=end)
 
 
 def _combination(entry: dict[str, Any], number: int, source: str) -> Combination:
     item = f"combinations[{number}]"
-    _table(entry, item, COMBINATION_KEYS, source)
-    name = str(entry.get("name", f"combination {number}"))
+    check_keys(entry, COMBINATION_KEYS, item, source)
+    name = read_text(entry.get("name", f"combination {number}"), f"{item}.name", source)
     item = f"combination {name!r}"
     factors = entry.get("factors")
     if not isinstance(factors, dict) or not factors:

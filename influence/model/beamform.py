@@ -18,7 +18,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from influence.errors import ModelError
-from influence.model.structure import Member, Model, Node, PathLeg, Support
+from influence.model.structure import MIN_LENGTH, Member, Model, Node, PathLeg, Support
 
 POSITION_TOLERANCE = 1e-9
 """Relative distance [-] within which two chainages are taken as the same point."""
@@ -71,6 +71,9 @@ def continuous_beam(
         if not (math.isfinite(span) and span > 0):
             raise ModelError(f"span {number} length {span:g} is not positive", source=source,
                              item="beam.spans", fix="give positive span lengths")
+        if span < MIN_LENGTH:
+            raise ModelError(f"span {number} length {span:g} is less than {MIN_LENGTH:g}",
+                             source=source, item="beam.spans", fix="give real span lengths")
     if len(supports) != len(spans) + 1:
         raise ModelError(
             f"{len(supports)} supports for {len(spans)} spans", source=source,
@@ -102,6 +105,12 @@ def continuous_beam(
                     "support releases nothing the support does not already allow)",
                 )
 
+    ordered_hinges = sorted(hinges)
+    for first, second in zip(ordered_hinges, ordered_hinges[1:], strict=False):
+        if second - first <= tolerance:
+            raise ModelError(f"a hinge at {first:g} is given twice", source=source,
+                             item="beam.hinges", fix="list each hinge once")
+
     # nodes at span ends, hinges and EI steps
     points: dict[float, str] = {}
     for name, at in zip(support_names, chainages, strict=True):
@@ -119,6 +128,13 @@ def continuous_beam(
             if _near(points, at, tolerance) is None:
                 step_number += 1
                 points[at] = f"J{step_number}"
+    generated = {name for at, name in points.items() if at not in chainages}
+    clash = sorted(generated & set(support_names))
+    if clash:
+        raise ModelError(f"support name {clash[0]!r} is also the name of a generated node",
+                         source=source, item="beam.names",
+                         fix="H1, H2, ... name the hinges and J1, J2, ... the EI steps: give "
+                             "the support another name")
     ordered = sorted(points)
     support_at = {at: s for at, s in zip(chainages, supports, strict=True)}
     nodes = []

@@ -99,7 +99,7 @@ class PathGeometry:
 
 def trace(model: Model) -> PathGeometry:
     """Lay the model's path out in chainage, checking that it is one connected chain."""
-    legs = []
+    legs: list[Leg] = []
     chainage = 0.0
     previous_exit = None
     for number, path_leg in enumerate(model.path, start=1):
@@ -117,6 +117,15 @@ def trace(model: Model) -> PathGeometry:
                 f"{previous_exit}", source=model.source, item=f"path item {number}",
                 fix="list the path members in order, each sharing a node with the previous",
             )
+        if any(leg.member == member.name for leg in legs):
+            raise ModelError(
+                f"the path travels member {member.name} twice", source=model.source,
+                item=f"path item {number}", fix="list each path member once")
+        if any(leg.entry_node == exit_ for leg in legs):
+            raise ModelError(
+                f"the path comes back to node {exit_}", source=model.source,
+                item=f"path item {number}",
+                fix="a travel path runs one way: it may not visit a node twice")
         length = model.length_of(member.name)
         legs.append(Leg(member.name, path_leg.against_member, chainage, length, entry, exit_))
         chainage += length
@@ -139,6 +148,10 @@ def orient(
                 f"path names unknown member {name!r}", source=source,
                 item=f"path item {number}", fix="list members defined in the file",
             )
+    for number, name in enumerate(names, start=1):
+        if name in names[:number - 1]:
+            raise ModelError(f"the path lists member {name!r} twice", source=source,
+                             item=f"path item {number}", fix="list each path member once")
     chosen = [index[name] for name in names]
     first = chosen[0]
     current = first.start

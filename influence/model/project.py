@@ -14,8 +14,7 @@ from typing import Any
 
 from influence.errors import ModelError
 from influence.model.fields import check_keys
-
-PROJECT_KEYS = ("job_number", "designed_by", "checked_by", "revision", "client", "location")
+from influence.model.keys import PROJECT_KEYS
 
 
 @dataclass(frozen=True)
@@ -36,7 +35,7 @@ def project_from_document(document: dict[str, Any], source: str = "") -> Project
     if not isinstance(table, dict):
         raise ModelError("project must be a table", source=source, item="project",
                          fix="write it as [project] with job_number, designed_by, ...")
-    check_keys(table, set(PROJECT_KEYS), "project", source)
+    check_keys(table, PROJECT_KEYS, "project", source)
     values = {}
     for key, value in table.items():
         if not isinstance(value, str):

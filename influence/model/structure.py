@@ -38,6 +38,22 @@ _NAMED_SUPPORTS: dict[str, tuple[Restraint, Restraint, Restraint]] = {
 }
 SUPPORT_KINDS = tuple(_NAMED_SUPPORTS)
 
+MIN_STIFFNESS = 1.0e-6
+"""The smallest member or spring stiffness [force, force*length^2, force/length]: smaller values
+are slips (a millionth of a kN-m^2 or kip-ft^2), and the deflections they give overflow."""
+
+MAX_MEMBERS = 2000
+"""The most members of a model: the stiffness is solved as a dense matrix, which for 2,000
+members of three unknowns a node takes some 300 MB."""
+
+MIN_LENGTH = 1.0e-6
+"""The shortest member [length]: a micrometre or less in metres or feet is a typing slip, and
+shorter members overflow the stiffness (it grows with 1 / length^3)."""
+
+BAR_EI = 1.0
+"""The bending stiffness a bar (released at both ends) gets when none is given [force*length^2]:
+a bar carries no moment, so the value changes no response; 1.0 keeps the stiffness well scaled."""
+
 
 def _check_restraint(value: Restraint, direction: str) -> Restraint:
     if isinstance(value, str):
@@ -49,11 +65,12 @@ def _check_restraint(value: Restraint, direction: str) -> Restraint:
             )
         return value
     number = float(value)
-    if not (math.isfinite(number) and number > 0):
+    if not (math.isfinite(number) and number >= MIN_STIFFNESS):
         raise ModelError(
-            f"spring stiffness {number:g} is not positive",
+            f"spring stiffness {number:g} is not positive" if not number > 0 else
+            f"spring stiffness {number:g} is too small to be a stiffness",
             item=direction,
-            fix="give a positive stiffness or 'free'",
+            fix=f"give a stiffness of at least {MIN_STIFFNESS:g}, or 'free'",
         )
     return number
 
@@ -156,6 +173,10 @@ class Member:
                     f"{label} = {value:g} is not positive", item=f"member {self.name}",
                     fix=f"give a positive {label}",
                 )
+            if value < MIN_STIFFNESS:
+                raise ModelError(
+                    f"{label} = {value:g} is too small to be a stiffness",
+                    item=f"member {self.name}", fix=f"give {label} of at least {MIN_STIFFNESS:g}")
         if self.start == self.end:
             raise ModelError("starts and ends at the same node", item=f"member {self.name}",
                              fix="join two different nodes")
@@ -210,6 +231,11 @@ class Model:
                              fix="use " + " or ".join(f'"{name}"' for name in SYSTEMS))
         for name in ("nodes", "members", "path", "hinge_nodes"):
             object.__setattr__(self, name, tuple(getattr(self, name)))
+        if len(self.members) > MAX_MEMBERS or len(self.nodes) > MAX_MEMBERS + 1:
+            raise ModelError(f"{len(self.members)} members and {len(self.nodes)} nodes are more "
+                             "than this tool solves", source=self.source, item="members",
+                             fix=f"give at most {MAX_MEMBERS} members")
+        _check_names(self)
         _check_unique(self.nodes, "node", self.source)
         _check_unique(self.members, "member", self.source)
         nodes = self.node_index
@@ -220,10 +246,12 @@ class Model:
                         f"member {member.name} names unknown node {end!r}", source=self.source,
                         item=f"member {member.name}", fix="define the node or correct the name",
                     )
-            if self.length_of(member.name) <= 0:
+            length = self.length_of(member.name)
+            if not length >= MIN_LENGTH:
                 raise ModelError(
-                    f"member {member.name} has zero length", source=self.source,
-                    item=f"member {member.name}", fix="give its nodes different coordinates",
+                    f"member {member.name} has length {length:g}, less than {MIN_LENGTH:g}",
+                    source=self.source, item=f"member {member.name}",
+                    fix="give its nodes different coordinates",
                 )
         if not self.path:
             raise ModelError("the travel path is empty", source=self.source, item="path",
@@ -254,6 +282,53 @@ class Model:
         a, b = self.node(member.start), self.node(member.end)
         length = self.length_of(member_name)
         return (b.x - a.x) / length, (b.y - a.y) / length
+
+
+NAME_FORBIDDEN = "@:,\"'"
+"""Characters a name may not hold: ``@`` writes MEMBER@DISTANCE, ``:`` a side, ``,`` a list."""
+
+MAX_NAME = 64
+"""The longest name [characters]."""
+
+
+def name_problem(name: object, node: bool = False) -> tuple[str, str] | None:
+    """What is wrong with a node or member name, and the fix; None when it is a good name.
+
+    A name is text of 1 to :data:`MAX_NAME` printable characters without spaces at its ends and
+    without ``@ : , "``; a node name may not read as a number, since a location that reads as
+    a number is a chainage (the README's rule for locations).
+
+    Example:
+        >>> name_problem("P1", node=True) is None, name_problem("20", node=True)[0]
+        (True, "node name '20' reads as a chainage")
+    """
+    if not isinstance(name, str):
+        return f"name {name!r} is not text", f'write it in quotes, such as "{name}"'
+    if not name.strip() or name != name.strip() or len(name) > MAX_NAME or not name.isprintable():
+        return (f"name {name!r} is empty, too long or has spaces at its ends",
+                f"give a name of 1 to {MAX_NAME} printable characters")
+    bad = sorted(set(name) & set(NAME_FORBIDDEN))
+    if bad:
+        return (f"name {name!r} holds {' '.join(bad)}",
+                "leave out @ (it writes MEMBER@DISTANCE), : , and quotes")
+    if node:
+        try:
+            float(name)
+        except ValueError:
+            return None
+        return (f"node name {name!r} reads as a chainage",
+                "start a node name with a letter, such as P20")
+    return None
+
+
+def _check_names(model: Model) -> None:
+    for items, node in ((model.nodes, True), (model.members, False)):
+        for item in items:
+            problem = name_problem(item.name, node)
+            if problem is not None:
+                what = "node" if node else "member"
+                raise ModelError(problem[0], source=model.source, item=f"{what} {item.name}",
+                                 fix=problem[1])
 
 
 def _check_unique(items: tuple[Node, ...] | tuple[Member, ...], what: str, source: str) -> None:

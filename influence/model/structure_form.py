@@ -1,4 +1,5 @@
-"""The structure in a model file: the compact beam form or the general form of nodes and members.
+"""The structure in a model file: the compact beam form, the compact truss form
+(:mod:`influence.model.trussform`) or the general form of nodes and members.
 
 Beam form::
 
@@ -32,7 +33,19 @@ General form::
     [path]
     members = ["deck1", "deck2"]      # or start = "A" and end = "E" through deck members
 
-Every problem raises :class:`~influence.errors.ModelError` naming the file, the item and the fix.
+Lengths, stiffnesses and springs take a plain number in the file's units or a quantity such as
+``"110 ft"`` or ``"29000 ksi"`` (:mod:`vehicles.quantities`); flags are TOML booleans and names
+quoted text (:mod:`influence.model.fields`). Every problem raises
+:class:`~influence.errors.ModelError` naming the file, the item and the fix.
+
+Example:
+    >>> model = model_from_document({"units": "kip-ft", "beam": {
+    ...     "spans": ["40 ft", "12.192 m"], "EI": "4.176e7 kip*in^2",
+    ...     "supports": ["pinned", "roller", "roller"]}})
+    >>> [round(model.length_of(m.name), 9) for m in model.members]
+    [40.0, 40.0]
+    >>> round(model.members[0].EI, 6)   # kip-ft^2
+    290000.0
 """
 
 from __future__ import annotations
@@ -42,34 +55,70 @@ from typing import Any
 
 from influence.errors import ModelError
 from influence.model.beamform import continuous_beam
-from influence.model.fields import check_keys, listed, read_number, required, table
+from influence.model.fields import (
+    check_keys,
+    listed,
+    read_flag,
+    read_name,
+    read_quantity,
+    read_text,
+    read_texts,
+    required,
+    table,
+    tables,
+)
+from influence.model.keys import BEAM_KEYS, MEMBER_KEYS, NODE_KEYS, PATH_KEYS
 from influence.model.path import orient, route
-from influence.model.structure import Member, Model, Node, PathLeg, Support
+from influence.model.structure import (
+    BAR_EI,
+    MAX_MEMBERS,
+    Member,
+    Model,
+    Node,
+    PathLeg,
+    Support,
+)
+from influence.model.trussform import truss_from_table
+from vehicles.units import SYSTEMS
 
-BEAM_KEYS = {"spans", "EI", "EA", "supports", "names", "hinges"}
-NODE_KEYS = {"name", "x", "y", "support"}
-MEMBER_KEYS = {"name", "start", "end", "EI", "EA", "E", "I", "A", "release_start",
-               "release_end", "sliding_end", "bar", "deck"}
-PATH_KEYS = {"members", "start", "end"}
 SPRING_WORDS = {"horizontal": "ux", "vertical": "uy", "rotational": "rz"}
 
 
 def model_from_document(document: dict[str, Any], source: str = "") -> Model:
-    """Build a model from parsed TOML (either form); the top-level keys are checked by
+    """Build a model from parsed TOML (any form); the top-level keys are checked by
     :func:`influence.model.reader.read_model_file`."""
-    title = str(document.get("title", Path(source).stem if source else "untitled"))
-    units = document.get("units", "kN-m")
-    has_beam = "beam" in document
-    has_general = "nodes" in document or "members" in document
-    if has_beam == has_general:
+    default_title = Path(source).stem if source else "untitled"
+    title = read_text(document.get("title", default_title), "title", source)
+    units = model_units(document, source)
+    forms = [form for form, present in (
+        ("[beam]", "beam" in document), ("[truss]", "truss" in document),
+        ("[[nodes]] and [[members]]", "nodes" in document or "members" in document))
+        if present]
+    if len(forms) != 1:
         raise ModelError(
-            "the file must describe either a [beam] or [[nodes]] and [[members]]",
+            "the file must describe one structure: " + (" and ".join(forms) or "none found"),
             source=source, item="top level",
-            fix="keep one form: a [beam] table, or node and member lists with a [path]",
+            fix="keep one form: a [beam] table, a [truss] table, or node and member lists "
+                "with a [path]",
         )
-    if has_beam:
-        return _beam(document["beam"], title, units, source)
+    if "beam" in document:
+        return _beam(table(document["beam"], "beam", source), title, units, source)
+    if "truss" in document:
+        if "path" in document:
+            raise ModelError("a [truss] makes its own path", source=source, item="path",
+                             fix="remove [path]: the load travels along the deck stringers")
+        return truss_from_table(table(document["truss"], "truss", source), title, units,
+                                source)
     return _general(document, title, units, source)
+
+
+def model_units(document: dict[str, Any], source: str) -> str:
+    """The file's unit system, checked first: every quantity is converted to it."""
+    units = document.get("units", "kN-m")
+    if not isinstance(units, str) or units not in SYSTEMS:
+        raise ModelError(f"units {units!r} are not known", source=source, item="units",
+                         fix="use " + " or ".join(f'"{name}"' for name in SYSTEMS))
+    return units
 
 
 def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
@@ -78,58 +127,101 @@ def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
         if key not in table:
             raise ModelError(f"missing key {key!r}", source=source, item="beam",
                              fix=f"add beam.{key}")
-    spans = [read_number(v, "beam.spans", source)
-             for v in listed(table["spans"], "beam.spans", source)]
-    stiffness = table["EI"]
-    if not isinstance(stiffness, list):
-        stiffness = read_number(stiffness, "beam.EI", source)
+    spans = [read_quantity(v, "spans", f"beam.spans[{i}]", source, units)
+             for i, v in enumerate(_capped(table["spans"], "beam.spans", source), start=1)]
+    stiffness = _beam_stiffness(table["EI"], units, source)
     supports = [
-        _support(entry, f"beam.supports[{i + 1}]", source, words=SPRING_WORDS)
+        _support(entry, f"beam.supports[{i + 1}]", source, SPRING_WORDS, units)
         for i, entry in enumerate(listed(table["supports"], "beam.supports", source))
     ]
-    hinges = [read_number(v, "beam.hinges", source)
-              for v in listed(table.get("hinges", []), "beam.hinges", source)]
+    hinges = [read_quantity(v, "hinges", f"beam.hinges[{i}]", source, units)
+              for i, v in enumerate(listed(table.get("hinges", []), "beam.hinges", source), 1)]
     names = table.get("names")
     if names is not None:
-        names = [str(n) for n in listed(names, "beam.names", source)]
+        names = [read_name(n, f"beam.names[{i}]", source, node=True)
+                 for i, n in enumerate(listed(names, "beam.names", source), start=1)]
         if len(set(names)) != len(names):
             raise ModelError("a support name is used twice", source=source, item="beam.names",
                              fix="give each support its own name")
-    EA = read_number(table["EA"], "beam.EA", source) if "EA" in table else None
+    EA = read_quantity(table["EA"], "EA", "beam.EA", source, units) if "EA" in table else None
     return continuous_beam(spans, stiffness, supports, names=names, hinges=hinges, EA=EA,
                            title=title, units=units, source=source)
 
 
+def _beam_stiffness(value: Any, units: str, source: str) -> Any:
+    """beam.EI: one value, one per span, or per span a list of [from, to, EI] ranges."""
+    item = "beam.EI"
+    if not isinstance(value, list):
+        return read_quantity(value, "EI", item, source, units)
+    per_span: list[Any] = []
+    for number, entry in enumerate(value, start=1):
+        where = f"{item}[{number}]"
+        if not isinstance(entry, list):
+            per_span.append(read_quantity(entry, "EI", where, source, units))
+            continue
+        ranges = []
+        for count, stretch in enumerate(entry, start=1):
+            here = f"{where}[{count}]"
+            if not isinstance(stretch, list) or len(stretch) != 3:
+                raise ModelError(f"EI range {stretch!r} is not [from, to, EI]", source=source,
+                                 item=here, fix="write each range as [from, to, EI]")
+            ranges.append([read_quantity(stretch[0], "from", here, source, units),
+                           read_quantity(stretch[1], "to", here, source, units),
+                           read_quantity(stretch[2], "EI", here, source, units)])
+        per_span.append(ranges)
+    return per_span
+
+
+def _capped(value: Any, item: str, source: str) -> list[Any]:
+    entries = listed(value, item, source)
+    if len(entries) > MAX_MEMBERS:
+        raise ModelError(f"{len(entries)} entries are more than this tool solves",
+                         source=source, item=item, fix=f"give at most {MAX_MEMBERS}")
+    return entries
+
+
 def _general(document: dict[str, Any], title: str, units: str, source: str) -> Model:
     nodes = []
-    for number, entry in enumerate(listed(document.get("nodes", []), "nodes", source), start=1):
+    node_entries = tables(document, "nodes", source)
+    member_entries = tables(document, "members", source)
+    if max(len(node_entries), len(member_entries)) > MAX_MEMBERS:
+        raise ModelError(f"{len(member_entries)} members and {len(node_entries)} nodes are more "
+                         "than this tool solves", source=source, item="members",
+                         fix=f"give at most {MAX_MEMBERS} of each")
+    for number, entry in enumerate(node_entries, start=1):
         item = f"nodes[{number}]"
-        entry = table(entry, item, source)
         check_keys(entry, NODE_KEYS, item, source)
-        name = required(entry, "name", item, source)
-        support = _support(entry.get("support", "free"), f"node {name}", source,
-                           words={"ux": "ux", "uy": "uy", "rz": "rz"})
-        x = read_number(required(entry, "x", item, source), item, source)
-        y = read_number(required(entry, "y", item, source), item, source)
-        nodes.append(Node(str(name), x, y, support))
+        name = read_name(required(entry, "name", item, source), f"{item}.name", source,
+                         node=True)
+        item = f"node {name}"
+        support = _support(entry.get("support", "free"), f"{item}.support", source,
+                           {"ux": "ux", "uy": "uy", "rz": "rz"}, units)
+        x = read_quantity(required(entry, "x", item, source), "x", f"{item}.x", source, units)
+        y = read_quantity(required(entry, "y", item, source), "y", f"{item}.y", source, units)
+        nodes.append(Node(name, x, y, support))
     members = []
-    for number, entry in enumerate(listed(document.get("members", []), "members", source), 1):
+    for number, entry in enumerate(member_entries, start=1):
         item = f"members[{number}]"
-        entry = table(entry, item, source)
         check_keys(entry, MEMBER_KEYS, item, source)
-        name = str(required(entry, "name", item, source))
+        name = read_name(required(entry, "name", item, source), f"{item}.name", source)
         item = f"member {name}"
-        bar = bool(entry.get("bar", False))
-        members.append(Member(
-            name, str(required(entry, "start", item, source)),
-            str(required(entry, "end", item, source)),
-            EA=_stiffness(entry, "EA", "A", item, source),
-            EI=_stiffness(entry, "EI", "I", item, source, default=None if not bar else 1.0),
-            release_start=bar or bool(entry.get("release_start", False)),
-            release_end=bar or bool(entry.get("release_end", False)),
-            sliding_end=bool(entry.get("sliding_end", False)),
-            deck=bool(entry.get("deck", False)),
-        ))
+        flags = {key: read_flag(entry.get(key, False), f"{item}.{key}", source)
+                 for key in ("bar", "release_start", "release_end", "sliding_end", "deck")}
+        bar = flags["bar"]
+        try:
+            members.append(Member(
+                name, read_name(required(entry, "start", item, source), f"{item}.start", source),
+                read_name(required(entry, "end", item, source), f"{item}.end", source),
+                EA=_stiffness(entry, "EA", "A", item, source, units),
+                EI=_stiffness(entry, "EI", "I", item, source, units,
+                              default=None if not bar else BAR_EI),
+                release_start=bar or flags["release_start"],
+                release_end=bar or flags["release_end"],
+                sliding_end=flags["sliding_end"], deck=flags["deck"],
+            ))
+        except ModelError as error:
+            raise ModelError(error.problem, source=source, item=error.item or item,
+                             fix=error.fix) from None
     if not nodes or not members:
         raise ModelError("a general model needs nodes and members", source=source,
                          item="top level", fix="add [[nodes]] and [[members]] entries")
@@ -137,13 +229,14 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
     check_keys(path_table, PATH_KEYS, "path", source)
     legs: tuple[PathLeg, ...]
     if "members" in path_table:
-        names = tuple(str(n) for n in listed(path_table["members"], "path.members", source))
+        names = read_texts(path_table["members"], "path.members", source)
         if not names:
             raise ModelError("path.members is empty", source=source, item="path",
                              fix="list the members the load travels along")
         legs = orient(tuple(members), names, source)
     elif "start" in path_table and "end" in path_table:
-        legs = route(tuple(members), str(path_table["start"]), str(path_table["end"]), source)
+        legs = route(tuple(members), read_text(path_table["start"], "path.start", source),
+                     read_text(path_table["end"], "path.end", source), source)
     else:
         raise ModelError("the path is not given", source=source, item="path",
                          fix="give path.members, or path.start and path.end nodes")
@@ -152,19 +245,20 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
 
 
 def _stiffness(entry: dict[str, Any], product: str, section: str, item: str, source: str,
-               default: float | None = None) -> float:
+               units: str, default: float | None = None) -> float:
     if product in entry:
-        return read_number(entry[product], f"{item}.{product}", source)
+        return read_quantity(entry[product], product, f"{item}.{product}", source, units)
     if "E" in entry and section in entry:
-        modulus = read_number(entry["E"], f"{item}.E", source)
-        return modulus * read_number(entry[section], f"{item}.{section}", source)
+        modulus = read_quantity(entry["E"], "E", f"{item}.E", source, units)
+        return modulus * read_quantity(entry[section], section, f"{item}.{section}", source,
+                                       units)
     if default is not None:
         return default
     raise ModelError(f"no {product} given", source=source, item=item,
                      fix=f"give {product}, or E and {section}")
 
 
-def _support(entry: Any, item: str, source: str, words: dict[str, str]) -> Support:
+def _support(entry: Any, item: str, source: str, words: dict[str, str], units: str) -> Support:
     if isinstance(entry, str):
         try:
             return Support.named(entry)
@@ -173,13 +267,18 @@ def _support(entry: Any, item: str, source: str, words: dict[str, str]) -> Suppo
     if isinstance(entry, dict):
         allowed = set(words) | {"kind"}
         check_keys(entry, allowed, item, source)
-        base = Support.named(str(entry.get("kind", "free")))
+        kind = read_text(entry.get("kind", "free"), f"{item}.kind", source)
+        try:
+            base = Support.named(kind)
+        except ModelError as error:
+            raise ModelError(error.problem, source=source, item=f"{item}.kind",
+                             fix=error.fix) from None
         values: dict[str, Any] = {"ux": base.ux, "uy": base.uy, "rz": base.rz}
         for word, direction in words.items():
             if word in entry:
                 value = entry[word]
-                values[direction] = value if isinstance(value, str) else read_number(
-                    value, f"{item}.{word}", source)
+                values[direction] = value if value in ("fixed", "free") else read_quantity(
+                    value, word, f"{item}.{word}", source, units)
         try:
             return Support(**values)
         except ModelError as error:
@@ -187,5 +286,3 @@ def _support(entry: Any, item: str, source: str, words: dict[str, str]) -> Suppo
     raise ModelError(f"support {entry!r} is neither a kind nor a table of springs",
                      source=source, item=item,
                      fix='write "pinned", "roller", "fixed", "free" or {vertical = 1.0e5}')
-
-

@@ -16,6 +16,7 @@ from typing import Any
 import numpy as np
 
 from influence.analysis.lines import NOISE, InfluenceLine
+from influence.model.limits import MAX_TABLE_ROWS, check_size, estimated_rows
 from influence.output.conventions import header_lines, ordinate_unit
 from influence.output.tables import Table
 from vehicles.units import labels
@@ -29,6 +30,8 @@ def positions(line: InfluenceLine, step: float | None = None) -> np.ndarray:
     at ``step`` [length] (default: the path length / :data:`DEFAULT_STEPS`)."""
     step = step if step and step > 0 else line.length / DEFAULT_STEPS
     start, end = float(line.breakpoints[0]), float(line.breakpoints[-1])
+    check_size(estimated_rows(end - start, step, 2 * line.breakpoints.size), MAX_TABLE_ROWS,
+               "table rows", "step", fix=f"give a step of at least {line.length / 1e5:.3g}")
     grid = start + step * np.arange(int(np.floor((end - start) / step + 1e-9)) + 1)
     left, right = line.limits()
     jumps = line.breakpoints[np.abs(left - right) > NOISE * line.scale]

@@ -83,8 +83,8 @@ def load_model(name_or_path: str | Path, units: str | None = None,
                adjust: Mapping[str, float] | None = None) -> LoadModel:
     """A load model from a library name or from a vehicle or model file, ready for use.
 
-    A ``Path``, an existing file or a name ending in ``.toml`` is read as a file; anything else
-    is looked up in the library.
+    A ``Path``, an existing path (a folder is refused as one) or a name ending in ``.toml`` is
+    read as a file; anything else is looked up in the library.
 
     Args:
         name_or_path: library name or file path.
@@ -97,7 +97,7 @@ def load_model(name_or_path: str | Path, units: str | None = None,
         61.822
     """
     text = str(name_or_path)
-    if isinstance(name_or_path, Path) or text.lower().endswith(".toml") or Path(text).is_file():
+    if isinstance(name_or_path, Path) or text.lower().endswith(".toml") or Path(text).exists():
         model = read_load_model(text)
     else:
         model = get_model(text)

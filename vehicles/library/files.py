@@ -48,16 +48,19 @@ from __future__ import annotations
 
 import difflib
 import math
-import tomllib
 from collections.abc import Callable, Mapping
 from functools import partial
 from pathlib import Path
 from typing import Any, TypeVar
 
 from vehicles.errors import VehicleError
+from vehicles.limits import MAX_RANGED
 from vehicles.loadmodel import Adjustment, LoadCase, LoadModel, Scope
+from vehicles.quantities import KEY_DIMENSIONS, quantity
+from vehicles.tomlfile import parse_toml_text, read_toml_file
 from vehicles.traffic import TrafficCategory, TrafficType
 from vehicles.train import Axle, Item, Patch, Span, Train
+from vehicles.units import SYSTEMS
 
 MODEL_KEYS = ("name", "title", "units", "standard", "clause", "notes", "category")
 TRAIN_KEYS = ("loads", "spacings", "leading_uniform", "trailing_uniform", "items", "vehicles",
@@ -71,6 +74,10 @@ ADJUSTMENT_KEYS = ("name", "value", "scales", "sets", "note")
 TRAFFIC_TYPE_KEYS = ("name", "shares", "note")
 TRAFFIC_CATEGORY_KEYS = ("name", "heavy_vehicles_per_year", "note")
 UNLIMITED = "unlimited"
+STRUCTURE_KEYS = frozenset({"title", "units", "beam", "truss", "nodes", "members", "path",
+                            "loads", "combinations", "live_load", "sections", "capacity",
+                            "fatigue"})
+"""Top-level keys of a structure model file: a file holding one is not a vehicle file."""
 
 _CASE_FIELDS = {
     # file key: LoadCase field
@@ -92,6 +99,7 @@ class _Reader:
 
     def __init__(self, source: str) -> None:
         self.source = source
+        self.units: str | None = None  # known before any quantity is read
 
     def fail(self, where: str, problem: str, fix: str) -> VehicleError:
         return VehicleError(problem, source=self.source, item=where, fix=fix)
@@ -135,27 +143,38 @@ class _Reader:
                             "give true or false (no quotes)")
         return value
 
-    def number(self, value: object, where: str, *, positive: bool = False) -> float:
+    def number(self, value: object, where: str, *, positive: bool = False,
+               key: str | None = None) -> float:
+        """A number; for a ``key`` with a dimension also a quantity such as "32 kip"."""
+        if key is not None and isinstance(value, str):
+            if self.units is None:
+                raise self.fail(where, f"{value!r} needs the file's units",
+                                'give units = "kN-m" or "kip-ft" in the same table')
+            value = quantity(value, key, self.units, item=where, source=self.source)
         if isinstance(value, bool) or not isinstance(value, int | float):
-            raise self.fail(where, f"expected a number, found {value!r}", "give a number")
+            fix = "give a number" if key is None else (
+                f"give a number in the file's units, or a quantity such as "
+                f"{KEY_DIMENSIONS[key].example}")
+            raise self.fail(where, f"expected a number, found {value!r}", fix)
         number = float(value)
         if not math.isfinite(number) or number < 0 or (positive and number == 0):
             need = "positive" if positive else "zero or positive"
             raise self.fail(where, f"{number:g} is not allowed", f"give a {need} number")
         return number
 
-    def span(self, value: object, where: str, *, positive: bool = False) -> Span:
+    def span(self, value: object, where: str, *, positive: bool = False,
+             key: str = "length") -> Span:
         if isinstance(value, list):
             if len(value) != 2:
                 raise self.fail(where, f"a range needs two numbers, found {value!r}",
                                 "give [min, max]")
-            low = self.number(value[0], where, positive=positive)
-            high = self.number(value[1], where, positive=positive)
+            low = self.number(value[0], where, positive=positive, key=key)
+            high = self.number(value[1], where, positive=positive, key=key)
             if low > high:
                 raise self.fail(where, f"range [{low:g}, {high:g}] has min above max",
                                 f"give [{high:g}, {low:g}]")
             return (low, high)
-        return self.number(value, where, positive=positive)
+        return self.number(value, where, positive=positive, key=key)
 
     def length(self, value: object, where: str) -> Span | None:
         if value == UNLIMITED:
@@ -173,9 +192,10 @@ class _Reader:
         raw = self.table(value, where, UNIFORM_KEYS)
         if "intensity" not in raw:
             raise self.fail(where, "no intensity", "give intensity = load per unit length")
-        intensity = self.number(raw["intensity"], f"{where} intensity", positive=True)
+        intensity = self.number(raw["intensity"], f"{where} intensity", positive=True,
+                                key="intensity")
         length = self.length(raw.get("length", UNLIMITED), f"{where} length")
-        gap = self.span(raw.get("gap", gap_default), f"{where} gap")
+        gap = self.span(raw.get("gap", gap_default), f"{where} gap", key="gap")
         return Patch(intensity, length, gap)
 
     def axles(self, raw: Mapping[str, Any], where: str) -> list[Item]:
@@ -185,10 +205,12 @@ class _Reader:
             raise self.fail(f"{where} spacings",
                             f"{len(spacings)} spacings for {len(loads)} loads",
                             "give one spacing fewer than loads: the gap to the previous axle")
-        items: list[Item] = [Axle(self.number(loads[0], f"{where} loads[1]", positive=True))]
+        items: list[Item] = [Axle(self.number(loads[0], f"{where} loads[1]", positive=True,
+                                               key="loads"))]
         for index, (load, gap) in enumerate(zip(loads[1:], spacings, strict=True), start=2):
-            axle_load = self.number(load, f"{where} loads[{index}]", positive=True)
-            axle_gap = self.span(gap, f"{where} spacings[{index - 1}]", positive=True)
+            axle_load = self.number(load, f"{where} loads[{index}]", positive=True, key="loads")
+            axle_gap = self.span(gap, f"{where} spacings[{index - 1}]", positive=True,
+                                 key="spacings")
             items.append(Axle(axle_load, axle_gap))
         if "leading_uniform" in raw:
             lead = self.uniform(raw["leading_uniform"], f"{where} leading_uniform")
@@ -201,15 +223,15 @@ class _Reader:
     def item(self, value: object, where: str, first: bool) -> Item:
         keys = ("axle", "uniform", "length", "gap")
         raw = self.table(value, where, keys)
-        gap = 0.0 if first else self.span(raw.get("gap", 0.0), f"{where} gap")
+        gap = 0.0 if first else self.span(raw.get("gap", 0.0), f"{where} gap", key="gap")
         if ("axle" in raw) == ("uniform" in raw):
             raise self.fail(where, "an item needs one of axle or uniform",
                             "give { axle = load } or { uniform = intensity, length = ... }")
         if "axle" in raw:
             if "length" in raw:
                 raise self.fail(where, "an axle has no length", "remove length")
-            return Axle(self.number(raw["axle"], f"{where} axle", positive=True), gap)
-        intensity = self.number(raw["uniform"], f"{where} uniform", positive=True)
+            return Axle(self.number(raw["axle"], f"{where} axle", positive=True, key="axle"), gap)
+        intensity = self.number(raw["uniform"], f"{where} uniform", positive=True, key="uniform")
         return Patch(intensity, self.length(raw.get("length", UNLIMITED), f"{where} length"), gap)
 
     def train(self, raw: Mapping[str, Any], name: str, where: str,
@@ -252,7 +274,7 @@ class _Reader:
             parts.append(named[part_name])
         joined = parts[0]
         for index, (part, headway) in enumerate(zip(parts[1:], headways, strict=True)):
-            gap = self.span(headway, f"{where} headways[{index + 1}]")
+            gap = self.span(headway, f"{where} headways[{index + 1}]", key="headways")
             joined = self.built(where, partial(joined.followed_by, part, gap))
         return Train(name, joined.items)
 
@@ -279,7 +301,13 @@ class _Reader:
             train = self.train(sub, train_name, f"{where} train", named)
         elif has_inline:
             train = self.train(raw, name, where, named)
-        values = {field: self.number(raw[key], f"{where} {key}")
+        if train is not None and len(train.ranged_values) > MAX_RANGED:
+            raise self.fail(f"{where} train", f"{len(train.ranged_values)} ranged gaps and "
+                            f"lengths are more than {MAX_RANGED}",
+                            "fix some of them: the search for the governing values grows as 3 "
+                            "to the power of their number")
+        values = {field: self.number(raw[key], f"{where} {key}",
+                                     key=key if key in KEY_DIMENSIONS else None)
                   for key, field in _CASE_FIELDS.items() if key in raw}
         scope = self.texts(raw.get("scope", []), f"{where} scope")
         note = self.text(raw.get("note", ""), f"{where} note")
@@ -332,6 +360,16 @@ class _Reader:
             fields["clause"], notes, category=fields["category"], **extras))
 
     def document(self, data: Mapping[str, Any]) -> LoadModel:
+        structure = sorted(set(data) & STRUCTURE_KEYS)
+        if structure:
+            raise self.fail("file", f"looks like a structure model file ({structure[0]} at "
+                            "the top level), not a vehicle file",
+                            "give it as MODEL_FILE; a vehicle file holds a [vehicle] table "
+                            "(loads, spacings, units) or [model] with [[case]] tables")
+        meta = data.get("vehicle", data.get("model"))
+        if isinstance(meta, dict) and isinstance(meta.get("units"), str) \
+                and meta["units"] in SYSTEMS:
+            self.units = meta["units"]
         if "vehicle" in data:
             self.table(data, "file", ("vehicle",))
             raw = self.table(data["vehicle"], "[vehicle]", VEHICLE_KEYS)
@@ -384,16 +422,11 @@ def parse_load_model(text: str, source: str = "<text>") -> LoadModel:
     Raises:
         VehicleError: for malformed TOML (with its line) or any bad value, in one line.
     """
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as error:
-        raise VehicleError(f"malformed TOML: {error}", source=source,
-                           fix="correct the TOML syntax there") from None
-    return _Reader(source).document(data)
+    return _Reader(source).document(parse_toml_text(text, source, VehicleError))
 
 
 def read_load_model(path: str | Path) -> LoadModel:
-    """Read a vehicle file or a load-model file.
+    """Read a vehicle file or a load-model file (UTF-8 TOML; a byte-order mark is allowed).
 
     Args:
         path: the TOML file.
@@ -401,11 +434,4 @@ def read_load_model(path: str | Path) -> LoadModel:
     Raises:
         VehicleError: when the file cannot be read or holds a bad value.
     """
-    path = Path(path)
-    try:
-        text = path.read_text(encoding="utf-8")
-    except (OSError, UnicodeDecodeError) as error:
-        reason = getattr(error, "strerror", None) or str(error)
-        raise VehicleError(f"cannot read the file: {reason}", source=str(path),
-                           fix="give the path of a UTF-8 TOML vehicle file") from None
-    return parse_load_model(text, str(path))
+    return _Reader(str(path)).document(read_toml_file(path, VehicleError, "vehicle file"))

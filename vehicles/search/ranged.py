@@ -26,6 +26,8 @@ import numpy as np
 
 from piecewise.shifted import shifted_sums
 from piecewise.skeleton import Skeletons, skeletons
+from vehicles.errors import VehicleError
+from vehicles.limits import MAX_RANGED
 from vehicles.loadmodel import LoadCase
 from vehicles.search.effects import Effects, RangedValues, build_effects
 from vehicles.search.prepared import PreparedLines
@@ -189,9 +191,18 @@ def numeric_values(
     direction: str,
     tolerance: float | None,
 ) -> RangedValues:
-    """The ranged values of one line by the numeric search (several ranges)."""
+    """The ranged values of one line by the numeric search (several ranges).
+
+    Raises:
+        VehicleError: for more than :data:`MAX_RANGED` ranges (the search would not end).
+    """
     train = case.train
     assert train is not None
+    if len(train.ranged_values) > MAX_RANGED:
+        raise VehicleError(f"{len(train.ranged_values)} ranged gaps and lengths are more than "
+                           f"{MAX_RANGED}", item=f"case {case.name}",
+                           fix="fix some of them: the search for the governing values grows as "
+                               "3 to the power of their number")
     lines = np.array([line])
     built: dict[RangedValues, float] = {}
 

@@ -20,6 +20,7 @@ Example:
 
 from __future__ import annotations
 
+import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
@@ -27,6 +28,8 @@ from typing import Any
 import numpy as np
 
 from piecewise import Piecewise
+from vehicles.errors import VehicleError
+from vehicles.limits import MAX_TABLE_ROWS
 from vehicles.loadmodel import LoadCase, LoadModel
 from vehicles.search.effects import effect_function
 from vehicles.search.govern import govern
@@ -98,6 +101,14 @@ def sweep(
     first, last = float(inner[0]), float(inner[-1])
     if step is None:
         step = (last - first) / DEFAULT_STEPS if last > first else 1.0
+    if not (math.isfinite(step) and step > 0):
+        raise VehicleError(f"step {step!r} is not a positive length", item="step",
+                           fix="give a positive step along the path")
+    rows = (last - first) / step + inner.size
+    if rows > MAX_TABLE_ROWS:
+        raise VehicleError(f"a step of {step:g} needs about {rows:,.0f} rows, more than "
+                           f"{MAX_TABLE_ROWS:,}", item="step",
+                           fix=f"give a step of at least {(last - first) / MAX_TABLE_ROWS:.3g}")
     regular = first + step * np.arange(int(np.floor((last - first) / step + 1e-9)) + 1)
     regular = regular[~np.isin(regular, inner)]
     positions = np.concatenate([regular, inner, inner])
