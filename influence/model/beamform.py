@@ -14,11 +14,12 @@ Example:
 from __future__ import annotations
 
 import math
-from collections.abc import Sequence
+from collections.abc import Mapping, Sequence
 from dataclasses import dataclass
 
 from influence.errors import ModelError
 from influence.model.structure import MIN_LENGTH, Member, Model, Node, PathLeg, Support
+from influence.model.variation import SectionVariation
 
 POSITION_TOLERANCE = 1e-9
 """Relative distance [-] within which two chainages are taken as the same point."""
@@ -48,6 +49,7 @@ def continuous_beam(
     names: Sequence[str] | None = None,
     hinges: Sequence[float] = (),
     EA: float | None = None,
+    variations: Mapping[int, SectionVariation] | None = None,
     title: str = "",
     units: str = "kN-m",
     source: str = "",
@@ -62,8 +64,15 @@ def continuous_beam(
         names: support names; default S1, S2, ...
         hinges: chainages of internal moment releases [length].
         EA: axial stiffness [force]; default see :data:`AXIAL_TO_BENDING`.
+        variations: haunches of spans by span number (1 for the first): the span's EI is then
+            that of its prismatic part; a haunched span is one member (no hinge or EI step in
+            it).
         title, units, source: carried to the model.
     """
+    for number in variations or {}:
+        if not 1 <= number <= len(spans):
+            raise ModelError(f"a haunch on span {number} of {len(spans)}", source=source,
+                             item="beam.haunches", fix=f"give a span from 1 to {len(spans)}")
     if not spans:
         raise ModelError("no spans given", source=source, item="beam.spans",
                          fix="give at least one span length")
@@ -161,9 +170,15 @@ def continuous_beam(
         if per_span[segment.span] > 1:
             name += _letters(seen[segment.span])
         axial = EA if EA is not None else default_axial
+        variation = (variations or {}).get(segment.span + 1)
+        if variation is not None and per_span[segment.span] > 1:
+            raise ModelError(f"span {segment.span + 1} is haunched and also split by a hinge or "
+                             "an EI step", source=source, item="beam.haunches",
+                             fix="haunch a span that is one member, or model it in the "
+                                 "general form")
         members.append(Member(
             name, points[lo], points[hi], EA=axial, EI=segment.EI,
-            release_end=hi in hinge_points, deck=True,
+            release_end=hi in hinge_points, deck=True, variation=variation,
         ))
     return Model(title=title, units=units, nodes=tuple(nodes), members=tuple(members),
                  path=tuple(PathLeg(m.name) for m in members), source=source,

@@ -74,4 +74,14 @@ def _member(model: Model, name: str) -> dict[str, Any]:
     for flag in _FLAGS:
         if getattr(member, flag):
             entry[flag] = True
+    variation = member.variation
+    if variation is not None:
+        for key, haunch in (("haunch_start", variation.start), ("haunch_end", variation.end)):
+            if haunch is not None:
+                entry[key] = {"shape": haunch.shape, "depth_ratio": haunch.depth_ratio,
+                              "length": haunch.span(model.length_of(name))}
+        if variation.taper is not None:
+            entry["taper"] = variation.taper
+        entry["inertia_exponent"] = variation.inertia_exponent
+        entry["area_exponent"] = variation.area_exponent
     return entry

@@ -18,13 +18,18 @@ BASIS_KEYS = ("loads", "combinations", "live_load", "sections")
 ASSESSMENT_KEYS = ("project", "rating", "capacity", "fatigue", "fatigue_detail")
 TOP_KEYS = (*STRUCTURE_KEYS, *BASIS_KEYS, *ASSESSMENT_KEYS)
 
-BEAM_KEYS = frozenset({"spans", "EI", "EA", "supports", "names", "hinges"})
+HAUNCH_KEYS = frozenset({"shape", "length", "length_fraction", "depth_ratio", "inertia_ratio"})
+BEAM_HAUNCH_KEYS = HAUNCH_KEYS | {"span", "at"}
+MEMBER_VARIATION_KEYS = frozenset({"haunch_start", "haunch_end", "taper", "inertia_exponent",
+                                   "area_exponent"})
+BEAM_KEYS = frozenset({"spans", "EI", "EA", "supports", "names", "hinges", "haunches",
+                       "inertia_exponent"})
 TRUSS_KEYS = frozenset({"panels", "panel_length", "depth", "type", "deck", "E", "A", "EA",
                         "chord_A", "diagonal_A", "vertical_A", "chord_EA", "diagonal_EA",
                         "vertical_EA", "stringer_EI", "stringer_EA", "supports"})
 NODE_KEYS = frozenset({"name", "x", "y", "support"})
 MEMBER_KEYS = frozenset({"name", "start", "end", "EI", "EA", "E", "I", "A", "release_start",
-                         "release_end", "sliding_end", "bar", "deck"})
+                         "release_end", "sliding_end", "bar", "deck"}) | MEMBER_VARIATION_KEYS
 PATH_KEYS = frozenset({"members", "start", "end"})
 LOAD_KEYS = frozenset({"name", "load", "uniform", "members", "from", "to", "point", "at"})
 COMBINATION_KEYS = frozenset({"name", "factors"})
@@ -36,6 +41,7 @@ PROJECT_KEYS = frozenset({"job_number", "designed_by", "checked_by", "revision",
 
 TABLES: dict[str, frozenset[str]] = {
     "[beam]": BEAM_KEYS,
+    "[[beam.haunches]]": BEAM_HAUNCH_KEYS,
     "[truss]": TRUSS_KEYS,
     "[[nodes]]": NODE_KEYS,
     "[[members]]": MEMBER_KEYS,

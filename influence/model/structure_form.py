@@ -79,6 +79,7 @@ from influence.model.structure import (
     Support,
 )
 from influence.model.trussform import truss_from_table
+from influence.model.variation_form import beam_variations, member_variation
 from vehicles.units import SYSTEMS
 
 SPRING_WORDS = {"horizontal": "ux", "vertical": "uy", "rotational": "rz"}
@@ -144,8 +145,9 @@ def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
             raise ModelError("a support name is used twice", source=source, item="beam.names",
                              fix="give each support its own name")
     EA = read_quantity(table["EA"], "EA", "beam.EA", source, units) if "EA" in table else None
+    variations = beam_variations(table, len(spans), source, units)
     return continuous_beam(spans, stiffness, supports, names=names, hinges=hinges, EA=EA,
-                           title=title, units=units, source=source)
+                           variations=variations, title=title, units=units, source=source)
 
 
 def _beam_stiffness(value: Any, units: str, source: str) -> Any:
@@ -218,6 +220,7 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
                 release_start=bar or flags["release_start"],
                 release_end=bar or flags["release_end"],
                 sliding_end=flags["sliding_end"], deck=flags["deck"],
+                variation=member_variation(entry, item, source, units),
             ))
         except ModelError as error:
             raise ModelError(error.problem, source=source, item=error.item or item,

@@ -16,7 +16,7 @@ import numpy as np
 
 from influence.analysis.lines import InfluenceLine
 from influence.model.path import trace
-from influence.model.structure import Model
+from influence.model.structure import Member, Model, Node
 from influence.output.conventions import ordinate_unit
 from influence.output.symbols import Label, draw_hinge, draw_support, place_labels
 from vehicles.output.figure_files import drawing, new_figure, save_figure
@@ -195,6 +195,28 @@ def structure_size(model: Model, width: float = 9.0) -> tuple[float, float]:
     return width, float(min(max(height + 1.5, 1.9), 0.8 * width))
 
 
+DEPTH_SCALE = 0.015
+"""Depth of a member of varying section as drawn where its relative depth is 1, a fraction [-] of
+the structure's extent (a haunch shows as the outline deepening toward the support)."""
+
+
+def _draw_depth(ax: Axes, member: Member, a: Node, b: Node, length: float, extent: float,
+                colour: str) -> None:
+    """The depth profile of a haunched or tapered member, as a filled outline on the member's
+    underside (its local -y' side), to scale along the member."""
+    from influence.analysis.haunch import section_of
+
+    assert member.variation is not None
+    section = section_of(member.variation, length, member.EI, member.EA)
+    along = np.linspace(0.0, length, 81)
+    depth = DEPTH_SCALE * extent * section.profile.values(along)
+    ux, uy = (b.x - a.x) / length, (b.y - a.y) / length
+    x, y = a.x + ux * along, a.y + uy * along
+    ax.fill(np.concatenate([x, (x + uy * depth)[::-1]]),
+            np.concatenate([y, (y - ux * depth)[::-1]]), color=colour, alpha=0.25,
+            linewidth=0, zorder=1)
+
+
 @drawing
 def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axes:
     """Draw members (bars thinner), supports, hinges, the travel path and the names, at equal
@@ -222,6 +244,8 @@ def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axe
             ax.plot([a.x, b.x], [a.y, b.y], color=PALETTE["path"], linewidth=6, alpha=0.3,
                     zorder=1, solid_capstyle="butt")
         length = max(float(np.hypot(b.x - a.x, b.y - a.y)), 1e-12)
+        if member.varies:
+            _draw_depth(ax, member, a, b, length, extent, colour)
         for released, near, far in ((member.release_start, a, b), (member.release_end, b, a)):
             if not released or near.name in pins:
                 continue

@@ -13,7 +13,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from influence.analysis.lines import analyse_model
-from influence.model.structure import Model
+from influence.model.structure import Member, Model
 from influence.output.conventions import header_lines
 from influence.output.tables import Table, render_table
 from vehicles.units import labels
@@ -38,6 +38,7 @@ class MemberRow:
     EA: float
     releases: str
     on_path: bool
+    section: str = "prismatic"
 
 
 @dataclass(frozen=True)
@@ -84,7 +85,8 @@ def summarise(model: Model) -> ModelSummary:
             releases = (releases + ", " if releases else "") + "slides at end"
         members.append(MemberRow(member.name, member.start, member.end,
                                  model.length_of(member.name), member.EI, member.EA, releases,
-                                 member.name in on_path))
+                                 member.name in on_path,
+                                 section_text(member, model.length_of(member.name))))
     hinges = tuple((name, path.node_chainage(name)) for name in model.hinge_nodes)
     return ModelSummary(
         title=model.title, units=model.units, form=model.form, path_length=path.total_length,
@@ -118,7 +120,29 @@ def render_summary(summary: ModelSummary) -> str:
     lines.append(render_table(Table(
         ["Members:"], ("member", "start", "end", f"length [{names.length}]",
                        f"EI [{names.force}*{names.length}^2]", f"EA [{names.force}]",
-                       "released end", "on path"),
+                       "released end", "on path", "section"),
         [(m.name, m.start, m.end, m.length, m.EI, m.EA, m.releases or "-",
-          "yes" if m.on_path else "no") for m in summary.members])))
+          "yes" if m.on_path else "no", m.section) for m in summary.members])))
     return "\n".join(lines)
+
+
+def section_text(member: Member, length: float) -> str:
+    """How a member's section varies, in words ("prismatic" when it does not); its EI and EA
+    are then those of the prismatic part (or of the start of a taper).
+
+    Example:
+        >>> from influence.model.variation import Haunch, SectionVariation
+        >>> m = Member("m", "a", "b", 1.0, 1.0, variation=SectionVariation(
+        ...     end=Haunch("parabolic", 1.0, length=3.0)))
+        >>> section_text(m, 10.0)
+        'haunched: end parabolic over 3, depth x 2, I ~ depth^3'
+    """
+    variation = member.variation
+    if variation is None or not member.varies:
+        return "prismatic"
+    exponent = f"I ~ depth^{variation.inertia_exponent:g}"
+    if variation.taper is not None:
+        return f"tapered: depth x {variation.taper:g} start to end, {exponent}"
+    parts = [f"{end} {h.shape} over {h.span(length):g}, depth x {1 + h.depth_ratio:g}"
+             for end, h in (("start", variation.start), ("end", variation.end)) if h is not None]
+    return "haunched: " + "; ".join(parts) + f", {exponent}"

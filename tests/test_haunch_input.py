@@ -1,0 +1,133 @@
+"""Haunched and tapered members in model files: the beam form's [[beam.haunches]], the general
+form's haunch_start, haunch_end and taper keys, their errors, and the general form written back
+by check --expand giving the same influence lines.
+
+Outside facts used (common practice): a rectangle's I grows as its depth cubed, so an end eight
+times stiffer than the middle is twice as deep (inertia_ratio 8 is depth_ratio 1); the vertical
+reaction lines of a girder sum to the unit load.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+from influence.analysis.lines import analyse_model
+from influence.analysis.responses import Response
+from influence.errors import ModelError
+from influence.model.expand import general_form_toml
+from influence.model.reader import read_model_file
+from tests.cli import invoke
+
+EXAMPLE = Path(__file__).resolve().parent.parent / "examples" / "tarn-viaduct-haunched.toml"
+BEAM = """
+units = "kN-m"
+[beam]
+spans = [20.0, 20.0]
+EI = 1.0e6
+supports = ["pinned", "roller", "roller"]
+[[beam.haunches]]
+span = 1
+at = "end"
+shape = "straight"
+length = "5 m"
+inertia_ratio = 8.0
+[[beam.haunches]]
+span = 2
+at = "start"
+shape = "straight"
+length_fraction = 0.25
+depth_ratio = 1.0
+"""
+
+
+def write(tmp_path: Path, text: str) -> Path:
+    path = tmp_path / "model.toml"
+    path.write_text(text)
+    return path
+
+
+def test_the_beam_form_haunches_its_spans(tmp_path: Path) -> None:
+    model = read_model_file(write(tmp_path, BEAM)).model
+    first, second = model.members
+    assert first.variation is not None and first.variation.start is None
+    assert first.variation.end.depth_ratio == pytest.approx(1.0, rel=1e-12)  # 8 = 2^3
+    assert second.variation is not None and second.variation.start.span(20.0) == 5.0
+    analysis = analyse_model(model)
+    x = np.linspace(0.0, 40.0, 401)
+    total = sum(analysis.line(Response("reaction", n)).values(x) for n in ("S1", "S2", "S3"))
+    assert np.abs(total - 1.0).max() <= 1e-9
+
+
+def test_expand_writes_the_haunches_and_reads_back_the_same_lines(tmp_path: Path) -> None:
+    read = read_model_file(write(tmp_path, BEAM))
+    expanded = tmp_path / "general.toml"
+    expanded.write_text(general_form_toml(read))
+    again = read_model_file(expanded).model
+    assert [m.variation is not None for m in again.members] == [True, True]
+    x = np.linspace(0.0, 40.0, 161)
+    for response in (Response("moment", "S2"), Response("shear", "12")):
+        first = analyse_model(read.model).line(response).values(x)
+        second = analyse_model(again).line(response).values(x)
+        assert second == pytest.approx(first, rel=1e-9, abs=1e-9)
+
+
+def test_a_tapered_general_member(tmp_path: Path) -> None:
+    text = """
+units = "kN-m"
+[[nodes]]
+name = "A"
+x = 0.0
+y = 0.0
+support = "fixed"
+[[nodes]]
+name = "B"
+x = 8.0
+y = 0.0
+[[members]]
+name = "AB"
+start = "A"
+end = "B"
+EI = 4.0e5
+EA = 4.0e6
+taper = 0.5
+deck = true
+[path]
+members = ["AB"]
+"""
+    model = read_model_file(write(tmp_path, text)).model
+    line = analyse_model(model).line(Response("moment", "A", component=""))
+    # a cantilever's root moment is statics alone, whatever the section: -a for a load at a
+    x = np.linspace(0.0, 8.0, 9)
+    assert line.values(x) == pytest.approx(-x, abs=1e-9)
+
+
+@pytest.mark.parametrize(("change", "message"), [
+    ('shape = "straight"', 'shape = "curved"'),
+    ("inertia_ratio = 8.0", "inertia_ratio = 8.0\ndepth_ratio = 1.0"),
+    ("span = 2", "span = 3"),
+    ('at = "start"', 'at = "middle"'),
+])
+def test_bad_haunches_are_one_line_errors(tmp_path: Path, change: str, message: str) -> None:
+    path = write(tmp_path, BEAM.replace(change, message, 1))
+    with pytest.raises(ModelError):
+        read_model_file(path)
+    code, output = invoke("check", str(path))
+    assert code == 1 and output.count("\n") <= 1 and "Traceback" not in output
+    assert "haunches" in output
+
+
+def test_a_haunch_on_a_span_split_by_a_hinge_is_refused(tmp_path: Path) -> None:
+    supports = 'supports = ["pinned", "roller", "roller"]'
+    path = write(tmp_path, BEAM.replace(supports, supports + "\nhinges = [8.0]"))
+    with pytest.raises(ModelError, match="haunched and also split"):
+        read_model_file(path)
+
+
+def test_the_haunched_viaduct_example_checks_and_draws(tmp_path: Path) -> None:
+    code, output = invoke("check", str(EXAMPLE), "--plot", str(tmp_path / "tarn.png"))
+    assert code == 0, output
+    assert "haunched: start parabolic over 9, depth x 2" in output
+    assert (tmp_path / "tarn.png").is_file()
