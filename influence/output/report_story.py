@@ -286,13 +286,22 @@ def _input_echo(w: _Writer, analysis: Analysis, envelope: Envelope,
                   [(s.node, s.x, s.y, "-" if s.chainage is None else s.chainage, s.kind)
                    for s in summary.supports],
                   formats=("text", "position", "position", "position", "text")))
+    # the section column only where a member varies: EI and EA are then its prismatic part's
+    varies = any(m.section != "prismatic" for m in summary.members)
+    extra = ("section",) if varies else ()
     w.table(Table([], ("member", "start", "end", f"length [{names.length}]",
                        f"EI [{names.force}-{names.length}2]", f"EA [{names.force}]",
-                       "released end", "on path"),
+                       "released end", "on path", *extra),
                   [(m.name, m.start, m.end, m.length, m.EI, m.EA, m.releases or "-",
-                    "yes" if m.on_path else "no") for m in summary.members],
+                    "yes" if m.on_path else "no", *((m.section,) if varies else ()))
+                   for m in summary.members],
                   formats=("text", "text", "text", "position", "number", "number", "text",
-                           "text")))
+                           "text", *("text" for _ in extra))))
+    if varies:
+        w.text("EI and EA of a haunched member are those of its prismatic part (of the start "
+               "of a taper); its influence lines come from the exact flexibility integrals of "
+               "1/EI(x), held as polynomial pieces with a proven truncation below 1e-12 of the "
+               "line's largest ordinate (round-off estimated below 1e-9 of it).")
     basis = envelope.basis
     w.heading("2.2 Dead loads", 1)
     if basis.loads:
