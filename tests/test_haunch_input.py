@@ -131,3 +131,25 @@ def test_the_haunched_viaduct_example_checks_and_draws(tmp_path: Path) -> None:
     assert code == 0, output
     assert "haunched: start parabolic over 9, depth x 2" in output
     assert (tmp_path / "tarn.png").is_file()
+
+
+def test_the_report_echoes_each_members_section(tmp_path: Path) -> None:
+    from pypdf import PdfReader
+
+    from influence.output.report import report_from_file
+
+    model = write(tmp_path, 'title = "two spans haunched at the pier"\n' + BEAM + """
+[[loads]]
+name = "deck"
+load = "DC"
+uniform = 10.0
+[live_load]
+vehicles = ["HL-93"]
+[sections]
+per_span = 2
+""")
+    files = report_from_file(model, tmp_path / "package")
+    echo = " ".join(page.extract_text() for page in PdfReader(files.pdf).pages[2:5])
+    assert "haunched: end straight over 5, depth x 2, I ~ depth^3" in echo
+    assert "haunched: start straight over 5, depth x 2" in echo
+    assert "prismatic part" in echo
