@@ -153,3 +153,53 @@ per_span = 2
     assert "haunched: end straight over 5, depth x 2, I ~ depth^3" in echo
     assert "haunched: start straight over 5, depth x 2" in echo
     assert "prismatic part" in echo
+
+
+def test_tapered_legs_and_a_haunch_are_drawn_below_their_members(tmp_path: Path) -> None:
+    from matplotlib.patches import Polygon
+
+    from influence.output.figures import draw_structure
+
+    # two legs leaning out from their bases to the knees, one drawn base to knee and one knee
+    # to base: both deepen toward the knee and hang on the frame's inside
+    model = read_model_file(write(tmp_path, """
+units = "kN-m"
+nodes = [ { name = "WB", x = 0.0, y = 0.0, support = "fixed" },
+          { name = "WK", x = 3.0, y = 4.0 },
+          { name = "EK", x = 21.0, y = 4.0 },
+          { name = "EB", x = 24.0, y = 0.0, support = "fixed" } ]
+[[members]]
+name = "W"
+start = "WB"
+end = "WK"
+EI = 8.0e5
+EA = 5.0e6
+taper = 2.0
+[[members]]
+name = "D"
+start = "WK"
+end = "EK"
+EI = 1.2e6
+EA = 6.0e6
+deck = true
+haunch_start = { shape = "straight", length = "3 m", depth_ratio = 1.0 }
+[[members]]
+name = "E"
+start = "EK"
+end = "EB"
+EI = 8.0e5
+EA = 5.0e6
+taper = 0.5
+[path]
+members = ["D"]
+""")).model
+    ax = draw_structure(model)
+    outlines = [p.get_xy() for p in ax.patches if isinstance(p, Polygon)]
+    assert len(outlines) == 3
+    west, deck, east = sorted(outlines, key=lambda xy: xy[:, 0].mean())
+    assert deck[:, 1].max() <= 4.0 + 1e-9  # below the deck
+    deepest = deck[np.argmin(deck[:, 1])]
+    assert deepest[0] < 3.5  # deepest at the haunched knee
+    # the legs hang inside, to the right of the west leg's axis and the left of the east one's
+    assert np.all(west[:, 0] >= 0.75 * west[:, 1] - 1e-9)
+    assert np.all(east[:, 0] <= 24.0 - 0.75 * east[:, 1] + 1e-9)

@@ -202,8 +202,8 @@ the structure's extent (a haunch shows as the outline deepening toward the suppo
 
 def _draw_depth(ax: Axes, member: Member, a: Node, b: Node, length: float, extent: float,
                 colour: str) -> None:
-    """The depth profile of a haunched or tapered member, as a filled outline on the member's
-    underside (its local -y' side), to scale along the member."""
+    """The depth profile of a haunched or tapered member, as a filled outline to scale along
+    the member: below it (whichever way it was drawn), or centred on a vertical member."""
     from influence.analysis.haunch import section_of
 
     assert member.variation is not None
@@ -212,8 +212,12 @@ def _draw_depth(ax: Axes, member: Member, a: Node, b: Node, length: float, exten
     depth = DEPTH_SCALE * extent * section.profile.values(along)
     ux, uy = (b.x - a.x) / length, (b.y - a.y) / length
     x, y = a.x + ux * along, a.y + uy * along
-    ax.fill(np.concatenate([x, (x + uy * depth)[::-1]]),
-            np.concatenate([y, (y - ux * depth)[::-1]]), color=colour, alpha=0.25,
+    # the normal pointing down, so that a leg drawn base to knee and one drawn knee to base
+    # hang the same way
+    nx, ny = (uy, -ux) if ux >= 0.0 else (-uy, ux)
+    near, far = (-0.5 * depth, 0.5 * depth) if abs(ux) <= 1e-9 else (0.0 * depth, depth)
+    ax.fill(np.concatenate([x + nx * near, (x + nx * far)[::-1]]),
+            np.concatenate([y + ny * near, (y + ny * far)[::-1]]), color=colour, alpha=0.25,
             linewidth=0, zorder=1)
 
 
