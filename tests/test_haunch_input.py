@@ -104,19 +104,46 @@ members = ["AB"]
     assert line.values(x) == pytest.approx(-x, abs=1e-9)
 
 
-@pytest.mark.parametrize(("change", "message"), [
-    ('shape = "straight"', 'shape = "curved"'),
-    ("inertia_ratio = 8.0", "inertia_ratio = 8.0\ndepth_ratio = 1.0"),
-    ("span = 2", "span = 3"),
-    ('at = "start"', 'at = "middle"'),
+@pytest.mark.parametrize(("old", "new", "named"), [
+    ('shape = "straight"', 'shape = "curved"', "beam.haunches[1].shape"),
+    ("inertia_ratio = 8.0", "inertia_ratio = 8.0\ndepth_ratio = 1.0", "beam.haunches[1]"),
+    ("span = 2", "span = 3", "beam.haunches[2].span"),
+    ('at = "start"', 'at = "middle"', "beam.haunches[2].at"),
+    ('length = "5 m"', 'length = "25 m"', "beam.haunches on span1"),  # longer than the span
+    ("length_fraction = 0.25", "length_fraction = 0.25\nlength = 3.0",  # 0.25 x 20 is 5
+     "beam.haunches on span2"),
+    ('length = "5 m"', 'length = "5 kN"', "beam.haunches[1].length"),
+    ("depth_ratio = 1.0", "depth_ratio = nan", "beam.haunches[2].depth_ratio"),
+    ("depth_ratio = 1.0", "depth_ratio = true", "beam.haunches[2].depth_ratio"),
+    ("EI = 1.0e6", "EI = 1.0e6\ninertia_exponent = 0", "beam.inertia_exponent"),
 ])
-def test_bad_haunches_are_one_line_errors(tmp_path: Path, change: str, message: str) -> None:
-    path = write(tmp_path, BEAM.replace(change, message, 1))
+def test_bad_haunches_are_one_line_errors_naming_file_and_key(tmp_path: Path, old: str,
+                                                              new: str, named: str) -> None:
+    path = write(tmp_path, BEAM.replace(old, new, 1))
     with pytest.raises(ModelError):
         read_model_file(path)
     code, output = invoke("check", str(path))
     assert code == 1 and output.count("\n") <= 1 and "Traceback" not in output
-    assert "haunches" in output
+    assert "model.toml" in output and named in output, output
+
+
+def test_a_member_haunch_longer_than_the_member_names_the_member(tmp_path: Path) -> None:
+    text = """
+units = "kN-m"
+nodes = [ { name = "A", x = 0.0, y = 0.0, support = "pinned" },
+          { name = "B", x = 6.0, y = 0.0, support = "roller" } ]
+[[members]]
+name = "AB"
+start = "A"
+end = "B"
+EI = 1.0e5
+EA = 1.0e6
+haunch_end = { shape = "straight", length = 7.0, depth_ratio = 0.5 }
+[path]
+members = ["AB"]
+"""
+    code, output = invoke("check", str(write(tmp_path, text)))
+    assert code == 1 and "member AB" in output and "no longer than the member" in output
 
 
 def test_a_haunch_on_a_span_split_by_a_hinge_is_refused(tmp_path: Path) -> None:

@@ -171,11 +171,7 @@ def haunched_section(length: float, EI_middle: float, EA_middle: float, *,
         [2.0, 2.0]
     """
     _positive(length, "length", "length")
-    near = start.span(length) if start else 0.0
-    far = end.span(length) if end else 0.0
-    if near + far > length * (1 + LENGTH_AGREEMENT):
-        raise _fail(f"haunches of {near} and {far} on a member of {length}", "length",
-                    "make the two haunches no longer than the member together")
+    near, far = SectionVariation(start, end).haunch_lengths(length)
     cuts = [0.0]
     rows: list[tuple[float, float, float]] = []
     if start:

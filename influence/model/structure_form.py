@@ -79,7 +79,7 @@ from influence.model.structure import (
     Support,
 )
 from influence.model.trussform import truss_from_table
-from influence.model.variation_form import beam_variations, member_variation
+from influence.model.variation_form import beam_variations, check_fit, member_variation
 from vehicles.units import SYSTEMS
 
 SPRING_WORDS = {"horizontal": "ux", "vertical": "uy", "rotational": "rz"}
@@ -146,8 +146,9 @@ def _beam(table: dict[str, Any], title: str, units: str, source: str) -> Model:
                              fix="give each support its own name")
     EA = read_quantity(table["EA"], "EA", "beam.EA", source, units) if "EA" in table else None
     variations = beam_variations(table, len(spans), source, units)
-    return continuous_beam(spans, stiffness, supports, names=names, hinges=hinges, EA=EA,
-                           variations=variations, title=title, units=units, source=source)
+    model = continuous_beam(spans, stiffness, supports, names=names, hinges=hinges, EA=EA,
+                            variations=variations, title=title, units=units, source=source)
+    return check_fit(model, source, lambda member: f"beam.haunches on {member.name}")
 
 
 def _beam_stiffness(value: Any, units: str, source: str) -> Any:
@@ -243,8 +244,9 @@ def _general(document: dict[str, Any], title: str, units: str, source: str) -> M
     else:
         raise ModelError("the path is not given", source=source, item="path",
                          fix="give path.members, or path.start and path.end nodes")
-    return Model(title=title, units=units, nodes=tuple(nodes), members=tuple(members),
-                 path=legs, source=source, form="general")
+    model = Model(title=title, units=units, nodes=tuple(nodes), members=tuple(members),
+                  path=legs, source=source, form="general")
+    return check_fit(model, source, lambda member: f"member {member.name}")
 
 
 def _stiffness(entry: dict[str, Any], product: str, section: str, item: str, source: str,

@@ -130,9 +130,24 @@ class SectionVariation:
         if self.taper is not None:
             _positive(self.taper, "taper", "-")
         for name in ("inertia_exponent", "area_exponent"):
-            value = getattr(self, name)
-            if not (math.isfinite(value) and value >= 0):
-                raise _fail(f"{name} = {value!r}", name, "give an exponent of 0 or more")
+            _positive(getattr(self, name), name, "-")
+
+    def haunch_lengths(self, member_length: float) -> tuple[float, float]:
+        """The lengths [length] of the start and end haunches (0 where there is none) on a
+        member of ``member_length`` [length], checked to fit on it together.
+
+        Example:
+            >>> both = Haunch("straight", 1.0, length_fraction=0.25)
+            >>> SectionVariation(start=both, end=Haunch("straight", 1.0, length=2.0)
+            ...                  ).haunch_lengths(12.0)
+            (3.0, 2.0)
+        """
+        near = self.start.span(member_length) if self.start else 0.0
+        far = self.end.span(member_length) if self.end else 0.0
+        if near + far > member_length * (1 + LENGTH_AGREEMENT):
+            raise _fail(f"haunches of {near:g} and {far:g} on a member of {member_length:g}",
+                        "length", "make the two haunches no longer than the member together")
+        return near, far
 
     @property
     def is_prismatic(self) -> bool:

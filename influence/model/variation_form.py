@@ -35,11 +35,13 @@ Example:
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from typing import Any
 
 from influence.errors import ModelError
 from influence.model.fields import check_keys, read_integer, read_number, read_quantity, read_text
 from influence.model.keys import BEAM_HAUNCH_KEYS, HAUNCH_KEYS, MEMBER_VARIATION_KEYS
+from influence.model.structure import Member, Model
 from influence.model.variation import HAUNCH_SHAPES, Haunch, SectionVariation
 
 ENDS = ("start", "end", "both")
@@ -84,7 +86,13 @@ def read_haunch(entry: Any, item: str, source: str, units: str,
 
 
 def _exponent(table: dict[str, Any], key: str, item: str, source: str, default: float) -> float:
-    return read_number(table[key], f"{item}.{key}", source) if key in table else default
+    if key not in table:
+        return default
+    value = read_number(table[key], f"{item}.{key}", source)
+    if not value > 0:
+        raise ModelError(f"{key} = {value:g}", source=source, item=f"{item}.{key}",
+                         fix="give a positive exponent (3 for a rectangle of constant width)")
+    return value
 
 
 def member_variation(entry: dict[str, Any], item: str, source: str,
@@ -138,3 +146,18 @@ def beam_variations(table: dict[str, Any], spans: int, source: str,
             ends[end] = haunch
     return {span: SectionVariation(ends.get("start"), ends.get("end"), None, n)
             for span, ends in found.items()}
+
+
+def check_fit(model: Model, source: str, item_of: Callable[[Member], str]) -> Model:
+    """Every haunch checked against its member's length once the geometry is known (haunch
+    lengths that overrun the member, or a length and a fraction that disagree), the error naming
+    the file and ``item_of(member)``."""
+    for member in model.members:
+        if member.variation is None:
+            continue
+        try:
+            member.variation.haunch_lengths(model.length_of(member.name))
+        except ModelError as error:
+            raise ModelError(error.problem, source=source, item=item_of(member),
+                             fix=error.fix) from None
+    return model
