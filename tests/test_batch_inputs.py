@@ -172,6 +172,7 @@ def test_the_fatigue_adapter_gives_the_damage_of_every_detail(tmp_path: Path) ->
     ('[[run]]\nkind = "permit"\ntrips = "daily"\n', "trips = 'daily'"),
     ('[[run]]\nkind = "fatigue"\nspectrum = "nowhere.csv"\n', "spectrum file not found"),
     ('[[run]]\nkind = "rate"\nedition = "MBE 3rd"\n', "unknown key 'edition'"),
+    ('[[run]]\nkind = "rate"\nlevels = ["bogus"]\n', "level 'bogus'"),
 ])
 def test_bad_assessment_runs_are_refused_when_the_job_is_read(tmp_path: Path, text: str,
                                                             problem: str) -> None:
@@ -290,3 +291,17 @@ def test_bad_input_is_one_line_and_exit_1(tmp_path: Path, monkeypatch: pytest.Mo
     assert len(result.stderr.strip().splitlines()) == 1
     assert "Traceback" not in result.output
     assert not (tmp_path / "out").exists()
+
+
+@pytest.mark.parametrize("place", ["{missing}/out", "{file}/out", "{file}", " "])
+def test_a_results_place_that_cannot_be_written_is_refused_before_any_work(
+        tmp_path: Path, place: str) -> None:
+    (tmp_path / "a-file").write_text("not a folder")
+    out = place.format(missing=tmp_path / "missing", file=tmp_path / "a-file")
+    result = CliRunner().invoke(main, ["batch", str(EXAMPLES / "harrow-county.toml"), "--job",
+                                       str(EXAMPLES / "legal-loads.toml"), "--out", out])
+    assert result.exit_code == 1
+    assert "Traceback" not in result.output and len(result.stderr.strip().splitlines()) == 1
+    assert "--out" in result.stderr
+    assert not (tmp_path / "missing").exists()
+    assert (tmp_path / "a-file").read_text() == "not a folder"

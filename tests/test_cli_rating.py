@@ -132,10 +132,13 @@ def test_bad_model_files(tmp_path, document, words):
     _one_line_error(*invoke("rate", str(path)), words)
 
 
-def test_negative_adtt_on_the_command_line():
+def test_negative_or_nan_adtt_on_the_command_line():
     _one_line_error(*invoke("permit", BRIDGE, "--vehicle", CARRIER, "--adtt", "-5"),
-                    "ADTT -5.0 is negative")
-    _one_line_error(*invoke("rate", BRIDGE, "--adtt", "-5"), "ADTT -5.0 is negative")
+                    "ADTT -5.0 is not a number of trucks of 0 or more")
+    _one_line_error(*invoke("rate", BRIDGE, "--adtt", "-5"),
+                    "ADTT -5.0 is not a number of trucks of 0 or more")
+    _one_line_error(*invoke("permit", BRIDGE, "--vehicle", CARRIER, "--adtt", "nan"),
+                    "ADTT nan is not a number of trucks")
 
 
 def test_permit_file_without_axles(tmp_path):

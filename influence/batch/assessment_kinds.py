@@ -34,6 +34,8 @@ from influence.batch.fields import text_list
 from influence.batch.rows import ResultRow, Subject, placed
 from influence.errors import BatchError, ModelError
 from influence.model.fields import read_number
+from influence.rating.load_factors import ALLOWABLE_LEVELS, LRFR_LEVELS
+from influence.rating.rating_vehicles import SHORT_LEVELS
 
 RATE_KEYS = ("levels", "adtt")
 PERMIT_KEYS = ("escorted", "crawl", "trips", "adtt")
@@ -99,6 +101,13 @@ def read_assessment_settings(table: dict[str, Any], folder: Path, source: str,
             raise BatchError(f"adtt = {adtt:g} is negative", source=source, item=f"{item}.adtt",
                              fix="give trucks a day, 0 or more")
     levels = text_list(table["levels"], source, f"{item}.levels") if "levels" in table else ()
+    # each structure's method decides which of these it rates at; a name no method knows is a
+    # mistake in the job, refused before any structure runs
+    known = tuple(dict.fromkeys((*SHORT_LEVELS, *LRFR_LEVELS, *ALLOWABLE_LEVELS)))
+    for level in levels:
+        if level not in known:
+            raise BatchError(f"level {level!r}", source=source, item=f"{item}.levels",
+                             fix="use " + ", ".join(f'"{k}"' for k in known))
     spectrum = _text(table, "spectrum", source, item)
     if spectrum is not None:
         spectrum = os.path.abspath(folder / spectrum)

@@ -21,6 +21,7 @@ from __future__ import annotations
 
 import csv
 import io
+import os
 from collections.abc import Sequence
 from dataclasses import fields
 from pathlib import Path
@@ -108,6 +109,35 @@ def _cell(value: Any) -> str:
 
 RESULT_FILES = ("rows", "structures", "routes")
 """The tables of a results folder, by file stem."""
+
+
+def check_results_place(folder: str | Path, item: str = "--out") -> Path:
+    """Refuse, before any work, a results folder that cannot be made or written: an empty
+    name, a missing parent folder, a file in its place, a place this user cannot write.
+
+    Example:
+        >>> check_results_place("/no/such/parent/results")  # doctest: +ELLIPSIS
+        Traceback (most recent call last):
+        ...
+        influence.errors.BatchError: ...: the folder '/no/such/parent' does not exist (...)
+    """
+    if str(folder).strip() == "":
+        raise BatchError("no folder given", item=item, fix="give a folder name")
+    target = Path(os.path.abspath(folder))
+    parent = target.parent
+    if target.exists() and not target.is_dir():
+        raise BatchError("this is a file, not a folder", source=str(folder), item=item,
+                         fix="give a new folder or the folder of an earlier batch run")
+    if not target.exists() and not parent.is_dir():
+        if parent.exists():
+            raise BatchError(f"{str(parent)!r} is a file, not a folder", source=str(folder),
+                             item=item, fix="give a place inside a folder")
+        raise BatchError(f"the folder {str(parent)!r} does not exist", source=str(folder),
+                         item=item, fix="create it first or give another place")
+    if not os.access(target if target.exists() else parent, os.W_OK | os.X_OK):
+        raise BatchError("this place cannot be written", source=str(folder), item=item,
+                         fix="give a place in a folder you can write")
+    return target
 
 
 def write_results(results: BatchResults, folder: str | Path, fmt: str = "parquet") -> list[Path]:

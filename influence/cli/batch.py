@@ -12,7 +12,7 @@ from influence.batch.inventory import read_inventory
 from influence.batch.job import read_job
 from influence.batch.parts import PARTS_FOLDER
 from influence.batch.results import summary_lines
-from influence.batch.tables import FORMATS, write_results
+from influence.batch.tables import FORMATS, check_results_place, write_results
 from influence.cli import main
 
 
@@ -20,7 +20,7 @@ from influence.cli import main
 @click.argument("inventory", type=click.Path(dir_okay=False))
 @click.option("--job", "job_file", required=True, type=click.Path(dir_okay=False),
               help="The job file: what to run on each structure, with which vehicles.")
-@click.option("--out", "out_dir", required=True, type=click.Path(file_okay=False),
+@click.option("--out", "out_dir", required=True, type=click.Path(),
               help="Folder for rows, structures and routes tables and the finished parts.")
 @click.option("--scheduler", help="Address of a running Dask scheduler (tcp://host:8786); "
                                   "default: a local cluster on this machine.")
@@ -36,6 +36,7 @@ def batch_command(inventory: str, job_file: str, out_dir: str, scheduler: str | 
     and vehicle group, and write the results to OUT."""
     if scheduler and workers:
         raise click.UsageError("--workers sizes the local cluster; a scheduler has its own")
+    check_results_place(out_dir)
     structures = read_inventory(inventory)
     job = read_job(job_file)
     chosen, _ = planned(structures, job)  # a bad route fails before a cluster starts

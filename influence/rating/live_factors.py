@@ -85,9 +85,10 @@ class PermitCrossing:
                              fix="give the permit vehicle's gross weight, greater than 0")
 
 
-def _checked_adtt(adtt: float | None) -> None:
+def checked_adtt(adtt: float | None, item: str = "rating.adtt") -> None:
+    """Refuse an ADTT that is negative or not a number (NaN)."""
     if adtt is not None and not adtt >= 0.0:
-        raise ModelError(f"ADTT {adtt!r} is negative", item="rating.adtt",
+        raise ModelError(f"ADTT {adtt!r} is not a number of trucks of 0 or more", item=item,
                          fix="give the average daily truck traffic in one direction, 0 or more, "
                              "or leave it out when unknown")
 
@@ -103,7 +104,7 @@ def legal_live_load_factor(edition: str, adtt: float | None) -> LiveLoadFactor:
         ModelError: for an unknown edition or a negative ADTT.
     """
     table = edition_table(edition)["legal"]
-    _checked_adtt(adtt)
+    checked_adtt(adtt)
     if adtt is None:
         return LiveLoadFactor(float(table["unknown"]), "ADTT unknown", "",
                               f"{table['clause']}; {table['unknown_mark']}")
@@ -154,7 +155,7 @@ def permit_live_load_factor(edition: str, crossing: PermitCrossing,
         ModelError: for an unknown edition, a negative ADTT, a combination the table does not
             hold, or a missing gross weight where the factor depends on it.
     """
-    _checked_adtt(adtt)
+    checked_adtt(adtt)
     row = _permit_row(edition, crossing)
     clause = edition_table(edition)["permit_clause"]
     if "factor" in row:

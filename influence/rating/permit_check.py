@@ -24,7 +24,7 @@ from pathlib import Path
 from influence.design.loading import vehicles_for
 from influence.errors import ModelError
 from influence.model.reader import ModelFile
-from influence.rating.live_factors import PermitCrossing
+from influence.rating.live_factors import PermitCrossing, checked_adtt
 from influence.rating.load_factors import limit_states
 from influence.rating.ratings import NotRated, Ratings, SectionRating
 from influence.rating.run import RatingInputs, rate_inputs, rating_inputs
@@ -196,9 +196,7 @@ def check_permit(source: ModelFile | RatingInputs | str | Path, vehicle: str | P
     inputs = source if isinstance(source, RatingInputs) else rating_inputs(source)
     settings = inputs.settings
     if adtt is not None:
-        if not adtt >= 0.0:
-            raise ModelError(f"ADTT {adtt!r} is negative", item="adtt",
-                             fix="give the trucks a day in one direction, 0 or more")
+        checked_adtt(adtt, "adtt")
         settings = dataclasses.replace(settings, adtt=float(adtt))
     if crawl and not escorted:
         raise ModelError("a crawl crossing is an escorted permit rule", item="crawl",

@@ -52,6 +52,7 @@ from influence.rating.demands import (
     rated_sections,
 )
 from influence.rating.impact import ImpactAllowance, lfr_impact, lrfr_impact
+from influence.rating.live_factors import checked_adtt
 from influence.rating.load_factors import limit_states
 from influence.rating.rating_vehicles import default_vehicles, levels_of, rating_levels
 from influence.rating.ratings import (
@@ -148,9 +149,7 @@ def rate(source: ModelFile | RatingInputs | str | Path, vehicles: Sequence[str] 
 
 
 def _with_adtt(settings: RatingSettings, adtt: float) -> RatingSettings:
-    if not adtt >= 0.0:
-        raise ModelError(f"ADTT {adtt!r} is negative", item="adtt",
-                         fix="give the trucks a day in one direction, 0 or more")
+    checked_adtt(adtt, "adtt")
     return dataclasses.replace(settings, adtt=float(adtt))
 
 
