@@ -93,7 +93,10 @@ HEADER = ["axle_1 [kip]", "axle_2 [kip]", "spacing_1 [ft]", "count [-]"]
      "axle_2"),
     (["axle_1 [kip]", "axle_2 [kip]", "spacing_1 [m]", "count [-]"], [[20, 30, 4, 5]],
      "header"),
-], ids=["row without axles", "negative count", "mixed force units", "kip with metres"])
+    (HEADER, [[20, 1e300, 14, 5]], "row 2, column 'axle_2 [kip]'"),
+    (HEADER, [[20, 30, 14, "nan"]], "row 2, column 'count [-]'"),
+], ids=["row without axles", "negative count", "mixed force units", "kip with metres",
+        "axle out of range", "count not a number"])
 def test_bad_spectrum_rows_name_the_file_row_and_column(tmp_path, header, rows, where):
     trucks = spectrum_file(tmp_path, header, rows)
     message = _one_line_error("fatigue", str(_model(tmp_path)), "--spectrum", str(trucks))

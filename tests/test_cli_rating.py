@@ -8,6 +8,8 @@ from pathlib import Path
 
 import pytest
 
+from influence.errors import ModelError
+from influence.rating.run import rate
 from tests.cli import invoke
 from tests.rating_files import simple_span, vehicle_file, write_toml
 
@@ -132,13 +134,18 @@ def test_bad_model_files(tmp_path, document, words):
     _one_line_error(*invoke("rate", str(path)), words)
 
 
-def test_negative_or_nan_adtt_on_the_command_line():
+def test_negative_huge_or_nan_adtt_on_the_command_line():
     _one_line_error(*invoke("permit", BRIDGE, "--vehicle", CARRIER, "--adtt", "-5"),
-                    "ADTT -5.0 is not a number of trucks of 0 or more")
-    _one_line_error(*invoke("rate", BRIDGE, "--adtt", "-5"),
-                    "ADTT -5.0 is not a number of trucks of 0 or more")
+                    "--adtt: -5 is out of range")
+    _one_line_error(*invoke("rate", BRIDGE, "--adtt", "1e300"), "--adtt: 1e300 is out of range")
     _one_line_error(*invoke("permit", BRIDGE, "--vehicle", CARRIER, "--adtt", "nan"),
-                    "ADTT nan is not a number of trucks")
+                    "--adtt: 'nan' is not a number")
+
+
+def test_the_library_refuses_a_negative_or_nan_adtt():
+    for adtt in (-5.0, float("nan")):
+        with pytest.raises(ModelError, match="is not a number of trucks of 0 or more"):
+            rate(BRIDGE, adtt=adtt)
 
 
 def test_permit_file_without_axles(tmp_path):

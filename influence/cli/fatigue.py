@@ -5,6 +5,7 @@ from __future__ import annotations
 import click
 
 from influence.cli import main
+from influence.cli.options import ADTT, STRESS_STEP
 from influence.fatigue.run import DIRECTION_CHOICES, fatigue
 from influence.output.fatigue_tables import (
     TEXT_RANGE_ROWS,
@@ -23,7 +24,7 @@ from influence.output.tables import render_csv, render_json, render_table
 @click.option("--spectrum", type=click.Path(dir_okay=False),
               help="Spectrum CSV of real trucks: one truck a row, units in the header.")
 @click.option("--vehicle", help="Or a fatigue load model: HL-93 fatigue, FLM3, FLM4 or a file.")
-@click.option("--adtt", type=float,
+@click.option("--adtt", type=ADTT,
               help="Trucks a day, one direction, all lanes (instead of [fatigue] adtt).")
 @click.option("--traffic-category", help="EN 1991-2 traffic category, such as 'category 2'.")
 @click.option("--traffic-type", help="Traffic type sharing a set of lorries, such as "
@@ -32,7 +33,7 @@ from influence.output.tables import render_csv, render_json, render_table
               show_default=True, help="Direction of travel; both: half the passages each way.")
 @click.option("--format", "fmt", type=click.Choice(["table", "csv", "json"]), default="table",
               show_default=True)
-@click.option("--range-step", type=float,
+@click.option("--range-step", type=STRESS_STEP,
               help="Group the printed stress ranges into steps of this width [ksi or MPa], "
                    "each at its upper end.")
 @click.option("--plot", "plot_file", type=click.Path(dir_okay=False),

@@ -56,6 +56,30 @@ class PositiveLength(click.ParamType):
         return number
 
 
+class Amount(click.ParamType):
+    """A finite number from ``minimum`` to ``maximum`` (a zero minimum may be excluded), such
+    as trucks a day or a stress step."""
+
+    name = "number"
+
+    def __init__(self, minimum: float, maximum: float, what: str, *,
+                 zero_allowed: bool = True) -> None:
+        self.minimum, self.maximum, self.what = minimum, maximum, what
+        self.zero_allowed = zero_allowed
+
+    def convert(self, value: Any, param: click.Parameter | None,
+                ctx: click.Context | None) -> float:
+        option = _name(param)
+        number = _finite(value, option)
+        low = number < self.minimum or (number == self.minimum and not self.zero_allowed)
+        if low or number > self.maximum:
+            bounds = (f"from {self.minimum:,g} to {self.maximum:,.0f}" if self.zero_allowed
+                      else f"greater than {self.minimum:,g} and at most {self.maximum:,.0f}")
+            raise ModelError(f"{value} is out of range", item=option,
+                             fix=f"give {self.what} {bounds}")
+        return number
+
+
 class Count(click.ParamType):
     """A whole number from ``minimum`` to ``maximum``."""
 
@@ -111,6 +135,10 @@ def not_empty(ctx: click.Context, param: click.Parameter, value: Any) -> Any:
 
 
 POSITIVE_LENGTH = PositiveLength()
+MAX_ADTT = 1.0e6
+"""The most trucks a day an option accepts: far above the traffic of any road."""
+ADTT = Amount(0.0, MAX_ADTT, "trucks a day in one direction")
+STRESS_STEP = Amount(0.0, 1.0e6, "a stress step", zero_allowed=False)
 PER_SPAN = Count(1, MAX_PER_SPAN)
 TOP = Count(1, MAX_TOP)
 POSITIONS = PositionList()

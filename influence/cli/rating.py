@@ -5,6 +5,7 @@ from __future__ import annotations
 import click
 
 from influence.cli import main
+from influence.cli.options import ADTT
 from influence.output.rating_tables import (
     not_rated_table,
     permit_document,
@@ -30,7 +31,7 @@ FORMATS = ("table", "csv", "json")
 @click.option("--level", "levels", multiple=True, type=click.Choice(LEVELS),
               help="Rating level (repeatable); default: the levels of [rating]. For LRFR, "
                    "inventory and operating are the design levels.")
-@click.option("--adtt", type=float, help="Trucks a day in one direction, instead of [rating].")
+@click.option("--adtt", type=ADTT, help="Trucks a day in one direction, instead of [rating].")
 @click.option("--concurrent-moment", is_flag=True,
               help="Report, with every shear rating, the moment under the same loads.")
 @click.option("--format", "fmt", type=click.Choice(FORMATS), default="table",
@@ -63,7 +64,7 @@ def rate_command(model_file: str, vehicles: tuple[str, ...], levels: tuple[str, 
 @click.option("--trips", type=click.Choice(["single", "multiple"]),
               help="Special permit for one trip or several; default: [rating.permit], else a "
                    "routine permit.")
-@click.option("--adtt", type=float, help="Trucks a day in one direction, instead of [rating].")
+@click.option("--adtt", type=ADTT, help="Trucks a day in one direction, instead of [rating].")
 @click.option("--format", "fmt", type=click.Choice(FORMATS), default="table",
               show_default=True)
 def permit_command(model_file: str, vehicle: str, escorted: bool, crawl: bool,

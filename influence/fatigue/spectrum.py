@@ -37,7 +37,7 @@ import numpy as np
 
 from influence.errors import ModelError
 from influence.fatigue.units import FORCE_KN, LENGTH_M, SYSTEMS
-from vehicles.tomlfile import decoded, read_capped
+from vehicles.tomlfile import MAX_MAGNITUDE, decoded, read_capped
 
 FREQUENCIES = ("per_day", "count")
 """Names of the frequency column: trucks a day, or trucks observed."""
@@ -263,6 +263,12 @@ def _numbers(rows: list[list[str]], lines: list[int], header: list[str],
         raise ModelError(f"{rows[i][j].strip()!r} is not a finite number", source=source,
                          item=f"row {lines[i]}, column {header[j].strip()!r}",
                          fix="write a plain number")
+    huge = np.abs(table) > MAX_MAGNITUDE
+    if np.any(huge):
+        i, j = np.argwhere(huge)[0]
+        raise ModelError(f"{rows[i][j].strip()!r} is out of range", source=source,
+                         item=f"row {lines[i]}, column {header[j].strip()!r}",
+                         fix=f"give a number of at most {MAX_MAGNITUDE:g} in magnitude")
     table[empty] = np.nan
     return table
 
