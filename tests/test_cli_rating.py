@@ -143,8 +143,8 @@ def test_negative_huge_or_nan_adtt_on_the_command_line():
 
 
 def test_the_library_refuses_a_negative_or_nan_adtt():
-    for adtt in (-5.0, float("nan")):
-        with pytest.raises(ModelError, match="is not a number of trucks of 0 or more"):
+    for adtt, problem in ((-5.0, "ADTT -5.0 is negative"), (float("nan"), "ADTT nan is not")):
+        with pytest.raises(ModelError, match=problem):
             rate(BRIDGE, adtt=adtt)
 
 

@@ -88,7 +88,8 @@ class PermitCrossing:
 def checked_adtt(adtt: float | None, item: str = "rating.adtt") -> None:
     """Refuse an ADTT that is negative or not a number (NaN)."""
     if adtt is not None and not adtt >= 0.0:
-        raise ModelError(f"ADTT {adtt!r} is not a number of trucks of 0 or more", item=item,
+        problem = "is negative" if adtt < 0 else "is not a number"
+        raise ModelError(f"ADTT {adtt!r} {problem}", item=item,
                          fix="give the average daily truck traffic in one direction, 0 or more, "
                              "or leave it out when unknown")
 
