@@ -230,3 +230,20 @@ members = ["D"]
     # the legs hang inside, to the right of the west leg's axis and the left of the east one's
     assert np.all(west[:, 0] >= 0.75 * west[:, 1] - 1e-9)
     assert np.all(east[:, 0] <= 24.0 - 0.75 * east[:, 1] + 1e-9)
+
+
+def test_the_rigid_frame_example_balances_the_simple_span_moment() -> None:
+    # statics of any frame (common practice): the deck's moment under a uniform load is the
+    # simple-span parabola plus the line between its end moments, so on a symmetric frame the
+    # midspan moment less the knee moment is w L^2 / 8, whatever the haunches and tapers do
+    path = EXAMPLE.parent / "alder-lane-rigid-frame.toml"
+    model = read_model_file(path).model
+    analysis = analyse_model(model)
+    knee = analysis.line(Response("moment", "deck@0.001"))
+    middle = analysis.line(Response("moment", "8.0"))
+    span = 16.0
+    assert middle.integral(0.0, span) - knee.integral(0.0, span) == pytest.approx(
+        span**2 / 8 - (0.001 * (span - 0.001)) / 2, rel=1e-9)
+    assert model.member("deck").varies and model.member("W-leg").varies
+    code, output = invoke("check", str(path))
+    assert code == 0 and "tapered: depth x 1.5 start to end" in output
