@@ -247,3 +247,22 @@ def test_the_rigid_frame_example_balances_the_simple_span_moment() -> None:
     assert model.member("deck").varies and model.member("W-leg").varies
     code, output = invoke("check", str(path))
     assert code == 0 and "tapered: depth x 1.5 start to end" in output
+
+
+def test_the_strip_under_an_influence_line_shows_the_haunch_depths() -> None:
+    from matplotlib.collections import PolyCollection
+
+    from influence.model.beamform import continuous_beam
+    from influence.output.figures import draw_line
+
+    def depths(model):  # type: ignore[no-untyped-def]
+        ax = draw_line(analyse_model(model).line(Response("moment", "10.0")), model)
+        strip = ax.get_figure().axes[1]
+        return [c for c in strip.collections if isinstance(c, PolyCollection)]
+
+    haunched = read_model_file(EXAMPLE).model
+    (outline, *more) = depths(haunched)
+    assert len(more) == 2  # one a span
+    assert not depths(continuous_beam([20.0, 20.0], 1.0e6, ["pinned", "roller", "roller"]))
+    deepest = min(v[1] for c in (outline, *more) for path in c.get_paths() for v in path.vertices)
+    assert deepest == pytest.approx(-0.6)  # depth twice the reference at the piers

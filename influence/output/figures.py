@@ -134,14 +134,37 @@ def hinge_nodes(model: Model) -> set[str]:
     return found
 
 
+STRIP_DEPTH = 0.3
+"""Depth drawn in the strip [strip units, of 2] where a member of varying section has its
+reference depth: a haunch twice as deep is drawn 0.6 deep, under the path line."""
+
+
+def _strip_depths(strip: Axes, model: Model, path: Any, colour: str) -> None:
+    """The depth profiles of the path's haunched or tapered members, hanging under the line."""
+    from influence.analysis.haunch import section_of
+
+    for leg in path.legs:
+        member = model.member(leg.member)
+        if not member.varies or member.variation is None:
+            continue
+        chainage = np.linspace(leg.start_chainage, leg.end_chainage, 81)
+        section = section_of(member.variation, leg.length, member.EI, member.EA)
+        depth = STRIP_DEPTH * section.profile.values(
+            np.array([leg.member_position(c) for c in chainage]))
+        strip.fill_between(chainage, 0.0, -depth, color=colour, alpha=0.25, linewidth=0,
+                           zorder=1)
+
+
 @drawing
 def draw_strip(strip: Axes, model: Model) -> Axes:
     """The structure along the path, drawn flat under an influence line: the path, its
-    supports and hinges at their chainages, the support names below."""
+    supports and hinges at their chainages, the support names below, and the depth of members
+    of varying section."""
     path = trace(model)
     colour = PALETTE["structure"]
     strip.plot([0.0, path.total_length], [0.0, 0.0], color=colour, linewidth=2.2,
                solid_capstyle="butt")
+    _strip_depths(strip, model, path, colour)
     hinges = hinge_nodes(model)
     first, last = path.legs[0].entry_node, path.legs[-1].exit_node
     for node in model.nodes:
