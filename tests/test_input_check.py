@@ -159,3 +159,16 @@ def test_damaged_vehicle_files_end_in_our_errors(tmp_path_factory: pytest.TempPa
         read_load_model(path)
     except VehicleError as error:
         assert "\n" not in str(error) and str(error)
+
+
+@pytest.mark.parametrize("key", ["standard", "section_units"])
+@pytest.mark.parametrize("value", [[], {"a": 1}, 3])
+def test_fatigue_choices_of_the_wrong_type_are_our_errors(tmp_path: Path, key: str,
+                                                          value: Any) -> None:
+    # found by the damaged-file property test: a list where a name belongs was a TypeError
+    document = tomllib.loads((EXAMPLES / "wrenfield-girder.toml").read_text(encoding="utf-8"))
+    document["fatigue"][key] = value
+    path = tmp_path / "bad.toml"
+    path.write_text(tomli_w.dumps(document))
+    with pytest.raises(InfluenceError, match=f"fatigue.{key}"):
+        check_model_file(path)

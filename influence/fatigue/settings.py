@@ -169,7 +169,7 @@ def fatigue_settings(document: dict[str, Any], source: str, units: str) -> Fatig
         raise ModelError(f"unknown unit system {units!r}", source=source, item="units",
                          fix="use kip-ft or kN-m")
     standard = given.get("standard")
-    if standard not in STANDARDS:
+    if not isinstance(standard, str) or standard not in STANDARDS:
         raise ModelError(f"unknown standard {standard!r}", source=source,
                          item="fatigue.standard", fix="use " + " or ".join(STANDARDS))
     data = table(STANDARDS[standard])
@@ -192,7 +192,7 @@ def fatigue_settings(document: dict[str, Any], source: str, units: str) -> Fatig
                              fix=f"remove {key} or use standard = \"EN\"")
     default_allowance = 0.0 if en else aashto.edition(edition)["dynamic_allowance"]
     section_units = given.get("section_units", DEFAULT_SECTION_UNITS[units])
-    if section_units not in LENGTH_M:
+    if not isinstance(section_units, str) or section_units not in LENGTH_M:
         raise ModelError(f"unknown section unit {section_units!r}", source=source,
                          item=item + "section_units", fix="use " + ", ".join(LENGTH_M))
     return FatigueSettings(
