@@ -4,7 +4,9 @@ by check --expand giving the same influence lines.
 
 Outside facts used (common practice): a rectangle's I grows as its depth cubed, so an end eight
 times stiffer than the middle is twice as deep (inertia_ratio 8 is depth_ratio 1); the vertical
-reaction lines of a girder sum to the unit load.
+reaction lines of a girder sum to the unit load; a cantilever's root moment is -a for a unit
+load at a, whatever its section; on a frame the deck moment under a uniform load is the
+simple-span parabola plus the line between its end moments.
 """
 
 from __future__ import annotations

@@ -15,7 +15,7 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 
 from influence.analysis.lines import InfluenceLine
-from influence.model.path import trace
+from influence.model.path import PathGeometry, trace
 from influence.model.structure import Member, Model, Node
 from influence.output.conventions import ordinate_unit
 from influence.output.symbols import Label, draw_hinge, draw_support, place_labels
@@ -134,23 +134,32 @@ def hinge_nodes(model: Model) -> set[str]:
     return found
 
 
+DEPTH_POINTS = 81
+"""Points along a member at which its depth outline is drawn (a drawing, not a result)."""
+
 STRIP_DEPTH = 0.3
 """Depth drawn in the strip [strip units, of 2] where a member of varying section has its
 reference depth: a haunch twice as deep is drawn 0.6 deep, under the path line."""
 
 
-def _strip_depths(strip: Axes, model: Model, path: Any, colour: str) -> None:
-    """The depth profiles of the path's haunched or tapered members, hanging under the line."""
+def _relative_depth(member: Member, length: float, along: np.ndarray) -> np.ndarray:
+    """Depth of a member of varying section over its reference depth [-] at distances
+    ``along`` it from its start node [length]."""
     from influence.analysis.haunch import section_of
 
+    assert member.variation is not None
+    return section_of(member.variation, length, member.EI, member.EA).profile.values(along)
+
+
+def _strip_depths(strip: Axes, model: Model, path: PathGeometry, colour: str) -> None:
+    """The depth profiles of the path's haunched or tapered members, hanging under the line."""
     for leg in path.legs:
         member = model.member(leg.member)
-        if not member.varies or member.variation is None:
+        if not member.varies:
             continue
-        chainage = np.linspace(leg.start_chainage, leg.end_chainage, 81)
-        section = section_of(member.variation, leg.length, member.EI, member.EA)
-        depth = STRIP_DEPTH * section.profile.values(
-            np.array([leg.member_position(c) for c in chainage]))
+        chainage = np.linspace(leg.start_chainage, leg.end_chainage, DEPTH_POINTS)
+        along = np.array([leg.member_position(float(c)) for c in chainage])
+        depth = STRIP_DEPTH * _relative_depth(member, leg.length, along)
         strip.fill_between(chainage, 0.0, -depth, color=colour, alpha=0.25, linewidth=0,
                            zorder=1)
 
@@ -224,24 +233,23 @@ the structure's extent (a haunch shows as the outline deepening toward the suppo
 
 
 def _draw_depth(ax: Axes, member: Member, a: Node, b: Node, length: float, extent: float,
-                colour: str) -> None:
+                colour: str) -> list[tuple[tuple[float, float], tuple[float, float]]]:
     """The depth profile of a haunched or tapered member, as a filled outline to scale along
-    the member: below it (whichever way it was drawn), or centred on a vertical member."""
-    from influence.analysis.haunch import section_of
-
-    assert member.variation is not None
-    section = section_of(member.variation, length, member.EI, member.EA)
-    along = np.linspace(0.0, length, 81)
-    depth = DEPTH_SCALE * extent * section.profile.values(along)
+    the member: below it (whichever way it was drawn), or centred on a vertical member.
+    Returns the outline's edges as segments, for labels to keep clear of."""
+    along = np.linspace(0.0, length, DEPTH_POINTS)
+    depth = DEPTH_SCALE * extent * _relative_depth(member, length, along)
     ux, uy = (b.x - a.x) / length, (b.y - a.y) / length
     x, y = a.x + ux * along, a.y + uy * along
     # the normal pointing down, so that a leg drawn base to knee and one drawn knee to base
     # hang the same way
     nx, ny = (uy, -ux) if ux >= 0.0 else (-uy, ux)
-    near, far = (-0.5 * depth, 0.5 * depth) if abs(ux) <= 1e-9 else (0.0 * depth, depth)
-    ax.fill(np.concatenate([x + nx * near, (x + nx * far)[::-1]]),
-            np.concatenate([y + ny * near, (y + ny * far)[::-1]]), color=colour, alpha=0.25,
-            linewidth=0, zorder=1)
+    near, far = (-0.5 * depth, 0.5 * depth) if abs(ux) <= 1e-9 else (np.zeros_like(depth), depth)
+    outline_x = np.concatenate([x + nx * near, (x + nx * far)[::-1]])
+    outline_y = np.concatenate([y + ny * near, (y + ny * far)[::-1]])
+    ax.fill(outline_x, outline_y, color=colour, alpha=0.25, linewidth=0, zorder=1)
+    corners = list(zip(outline_x[::8].tolist(), outline_y[::8].tolist(), strict=True))
+    return list(zip(corners, corners[1:], strict=False))
 
 
 @drawing
@@ -258,6 +266,7 @@ def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axe
     pins = _pin_joints(model)
     continuous = _continuous_ends(model)
     segments = []
+    outlines: list[tuple[tuple[float, float], tuple[float, float]]] = []
     from matplotlib.transforms import offset_copy
 
     figure: Any = ax.get_figure()
@@ -272,7 +281,7 @@ def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axe
                     zorder=1, solid_capstyle="butt")
         length = max(float(np.hypot(b.x - a.x, b.y - a.y)), 1e-12)
         if member.varies:
-            _draw_depth(ax, member, a, b, length, extent, colour)
+            outlines += _draw_depth(ax, member, a, b, length, extent, colour)
         for released, near, far in ((member.release_start, a, b), (member.release_end, b, a)):
             if not released or near.name in pins:
                 continue
@@ -327,5 +336,28 @@ def draw_structure(model: Model, ax: Axes | None = None, title: str = "") -> Axe
         offsets = tuple((side * d * nx_, side * d * ny_) for d in (8, 15, 22) for side in (1, -1))
         found.append(Label(member.name, anchors, offsets, False,
                            PALETTE["path"] if member.name in on_path else PALETTE["line"], 6.5))
-    place_labels(ax, found, segments)
+    _room_for_labels(ax, min((n.y for n in supported), default=min(ys)), max(ys))
+    place_labels(ax, found, segments + outlines)
     return ax
+
+
+LABEL_ROOM_BELOW = 32.0
+"""Room [points] kept inside the drawing under the lowest support, for its symbol and name."""
+LABEL_ROOM_ABOVE = 18.0
+"""Room [points] kept inside the drawing over the highest node, for its name."""
+
+
+def _room_for_labels(ax: Axes, lowest: float, highest: float) -> None:
+    """Widen the drawing's data limits so that :data:`LABEL_ROOM_BELOW` points fit under
+    ``lowest`` and :data:`LABEL_ROOM_ABOVE` over ``highest`` [length]: support names sit 24
+    points under their support, node names up to 11 over their node, and both must stay inside
+    the drawing (through the data limits: at equal aspect the axes keep their box)."""
+    figure: Any = ax.get_figure()
+    figure.draw_without_rendering()
+    to_data = ax.transData.inverted()
+    (_, y0), (_, y1) = to_data.transform([(0.0, 0.0), (0.0, figure.dpi / 72.0)])
+    per_point = abs(y1 - y0)
+    x = ax.get_xlim()[0]
+    ax.update_datalim([(x, lowest - LABEL_ROOM_BELOW * per_point),
+                       (x, highest + LABEL_ROOM_ABOVE * per_point)], updatex=False)
+    ax.autoscale_view()

@@ -49,7 +49,7 @@ from influence.output.report_tables import (
     load_model_table,
     summary_table,
 )
-from influence.output.summary import summarise
+from influence.output.summary import PRISMATIC, summarise
 from vehicles.loadmodel import LoadModel
 from vehicles.output.describe import details
 from vehicles.output.tables import model_text
@@ -287,16 +287,19 @@ def _input_echo(w: _Writer, analysis: Analysis, envelope: Envelope,
                    for s in summary.supports],
                   formats=("text", "position", "position", "position", "text")))
     # the section column only where a member varies: EI and EA are then its prismatic part's
-    varies = any(m.section != "prismatic" for m in summary.members)
-    extra = ("section",) if varies else ()
-    w.table(Table([], ("member", "start", "end", f"length [{names.length}]",
-                       f"EI [{names.force}-{names.length}2]", f"EA [{names.force}]",
-                       "released end", "on path", *extra),
-                  [(m.name, m.start, m.end, m.length, m.EI, m.EA, m.releases or "-",
-                    "yes" if m.on_path else "no", *((m.section,) if varies else ()))
-                   for m in summary.members],
-                  formats=("text", "text", "text", "position", "number", "number", "text",
-                           "text", *("text" for _ in extra))))
+    varies = any(m.section != PRISMATIC for m in summary.members)
+    columns = ["member", "start", "end", f"length [{names.length}]",
+               f"EI [{names.force}-{names.length}2]", f"EA [{names.force}]", "released end",
+               "on path"]
+    formats = ["text", "text", "text", "position", "number", "number", "text", "text"]
+    rows = [[m.name, m.start, m.end, m.length, m.EI, m.EA, m.releases or "-",
+             "yes" if m.on_path else "no"] for m in summary.members]
+    if varies:
+        columns.append("section")
+        formats.append("text")
+        for row, member in zip(rows, summary.members, strict=True):
+            row.append(member.section)
+    w.table(Table([], tuple(columns), [tuple(row) for row in rows], formats=tuple(formats)))
     if varies:
         w.text("EI and EA of a haunched member are those of its prismatic part (of the start "
                "of a taper); its influence lines come from the exact flexibility integrals of "

@@ -28,6 +28,10 @@ class SupportRow:
     kind: str
 
 
+PRISMATIC = "prismatic"
+"""The section text of a member whose section does not vary."""
+
+
 @dataclass(frozen=True)
 class MemberRow:
     name: str
@@ -38,7 +42,7 @@ class MemberRow:
     EA: float
     releases: str
     on_path: bool
-    section: str = "prismatic"
+    section: str = PRISMATIC
 
 
 @dataclass(frozen=True)
@@ -83,10 +87,10 @@ def summarise(model: Model) -> ModelSummary:
                     (True, True): "both"}[(member.release_start, member.release_end)]
         if member.sliding_end:
             releases = (releases + ", " if releases else "") + "slides at end"
-        members.append(MemberRow(member.name, member.start, member.end,
-                                 model.length_of(member.name), member.EI, member.EA, releases,
-                                 member.name in on_path,
-                                 section_text(member, model.length_of(member.name))))
+        length = model.length_of(member.name)
+        members.append(MemberRow(member.name, member.start, member.end, length, member.EI,
+                                 member.EA, releases, member.name in on_path,
+                                 section_text(member, length)))
     hinges = tuple((name, path.node_chainage(name)) for name in model.hinge_nodes)
     return ModelSummary(
         title=model.title, units=model.units, form=model.form, path_length=path.total_length,
@@ -139,7 +143,7 @@ def section_text(member: Member, length: float) -> str:
     """
     variation = member.variation
     if variation is None or not member.varies:
-        return "prismatic"
+        return PRISMATIC
     exponent = f"I ~ depth^{variation.inertia_exponent:g}"
     if variation.taper is not None:
         return f"tapered: depth x {variation.taper:g} start to end, {exponent}"
