@@ -187,3 +187,21 @@ def test_reactions_off_the_path_are_drawn_by_support() -> None:
     ax = draw_envelope(result, "reaction")
     labels = [t.get_text() for t in ax.get_xticklabels()]
     assert "W-base" in labels and "E-base" in labels
+
+
+@pytest.mark.parametrize("name", ["alder-lane-rigid-frame", "portal-footbridge",
+                                  "truss-rail-bridge", "tarn-viaduct-haunched"])
+def test_structure_labels_stay_inside_the_drawing_at_report_size(name: str) -> None:
+    from influence.output.figures import structure_size
+    from vehicles.output.figure_files import new_figure
+
+    model = read_model(EXAMPLES / f"{name}.toml")
+    width, height = structure_size(model, 9.0)
+    ax = draw_structure(model, ax=new_figure(width, min(height, 4.2)).add_subplot())
+    figure = ax.get_figure()
+    renderer = figure._get_renderer()
+    inside = ax.get_window_extent(renderer)
+    for text in ax.texts:
+        box = text.get_window_extent(renderer)
+        assert inside.x0 <= box.x0 and box.x1 <= inside.x1, text.get_text()
+        assert inside.y0 <= box.y0 and box.y1 <= inside.y1, text.get_text()

@@ -145,9 +145,9 @@ def _crosses(box: Any, segment: np.ndarray) -> bool:
 
 def place_labels(ax: Any, labels: Sequence[Label],
                  segments: Sequence[tuple[tuple[float, float], tuple[float, float]]]) -> list[Any]:
-    """Place labels in order, each at the first spot (anchor and offset) whose box crosses no
-    segment [data units] (the members) and overlaps no label already placed; returns the text
-    artists placed.
+    """Place labels in order, each at the first spot (anchor and offset) whose box lies inside
+    the axes, crosses no segment [data units] (the members) and overlaps no label already
+    placed; returns the text artists placed.
 
     The figure is laid out first, so the boxes are those of the final drawing.
     """
@@ -155,6 +155,7 @@ def place_labels(ax: Any, labels: Sequence[Label],
     figure.draw_without_rendering()
     renderer = figure._get_renderer()
     lines = [ax.transData.transform(np.asarray(s, dtype=float)) for s in segments]
+    inside = ax.get_window_extent(renderer)
     placed: list[Any] = []
     boxes: list[Any] = []
 
@@ -169,7 +170,9 @@ def place_labels(ax: Any, labels: Sequence[Label],
             for offset in label.offsets:
                 text = put(label, anchor, offset)
                 box = text.get_window_extent(renderer).expanded(1.08, 1.2)
-                if not any(_crosses(box, s) for s in lines) and not any(
+                within = (inside.x0 <= box.x0 and box.x1 <= inside.x1
+                          and inside.y0 <= box.y0 and box.y1 <= inside.y1)
+                if within and not any(_crosses(box, s) for s in lines) and not any(
                         box.overlaps(b) for b in boxes):
                     chosen = text
                     break
